@@ -1,0 +1,108 @@
+package correlations
+
+// Property names what a catalog entry estimates.
+type Property string
+
+// The properties of the catalog. The ids of DESIGN.md §4 are unique within a property.
+const (
+	SolutionGas     Property = "pb"       // bubble point Pb(Rsb) with its inverse Rs(p)
+	OilFVF          Property = "bo"       // saturated oil formation volume factor
+	Compressibility Property = "co"       // undersaturated oil compressibility (p > Pb)
+	CoBelowPb       Property = "co_sat"   // oil compressibility below Pb
+	DeadViscosity   Property = "mu_dead"  // dead-oil viscosity at reservoir temperature
+	SatViscosity    Property = "mu_sat"   // saturated (live) oil viscosity
+	UnderViscosity  Property = "mu_under" // undersaturated oil viscosity
+	PseudoCritical  Property = "ppc"      // gas pseudo-critical pressure and temperature
+	SourCorrection  Property = "sour"     // pseudo-critical correction for H2S and CO2
+	GasZ            Property = "z"        // gas compressibility factor
+	GasViscosity    Property = "mu_gas"   // gas viscosity
+)
+
+// Oil describes the fluid that the oil correlations need besides pressure and Rs.
+type Oil struct {
+	API            float64 // stock-tank oil gravity, °API
+	GasGravity     float64 // separator gas gravity, air = 1
+	Temperature    float64 // reservoir temperature, °F
+	SepPressure    float64 // first-stage separator pressure, psia; 0 means unknown (114.7 is used)
+	SepTemperature float64 // first-stage separator temperature, °F; 0 means unknown (60 is used)
+}
+
+// OilGravity returns the stock-tank oil specific gravity (water = 1) from API gravity:
+// γo = 141.5/(131.5 + API) (API definition, common practice).
+func (o Oil) OilGravity() float64 { return 141.5 / (131.5 + o.API) }
+
+// Range is the span of one input in a correlation's original data set.
+type Range struct {
+	Input string  // input name as shown to the user: "API", "gas gravity", "temperature", "Rsb", "p"
+	Unit  string  // unit of Min and Max: "°API", "", "°F", "scf/STB", "psia"
+	Min   float64 // smallest value in the original data
+	Max   float64 // largest value in the original data
+}
+
+// Entry is one line of the catalog.
+type Entry struct {
+	ID         string   // stable id used in files and flags, for example "standing"
+	Property   Property // what the entry estimates
+	Authors    string   // "Standing", "Vasquez and Beggs"
+	Year       int      // year of publication
+	Reference  string   // the published reference
+	Ranges     []Range  // input ranges of the original data set
+	Convention string   // input convention the correlation assumes, if any
+}
+
+// SolutionGasFamily is a mutually consistent pair: BubblePoint(Rsb) and its exact inverse
+// SolutionGOR(p) for p at or below the bubble point.
+type SolutionGasFamily struct {
+	ID          string
+	BubblePoint func(rsb float64, o Oil) (float64, error) // psia
+	SolutionGOR func(p float64, o Oil) (float64, error)   // scf/STB
+}
+
+// OilFVFFamily gives the saturated oil formation volume factor (rb/STB) of oil holding rs
+// scf/STB at pressure p (psia) and o.Temperature. Most families ignore p.
+type OilFVFFamily struct {
+	ID  string
+	FVF func(p, rs float64, o Oil) (float64, error)
+}
+
+// CompressibilityFamily gives the isothermal oil compressibility (1/psi) at p for an oil
+// with bubble point pb and solution GOR at the bubble point rsb, and RelativeVolume, the
+// ratio Bo(p)/Bo(pb) = exp(−∫ co dp from pb to p), for p ≥ pb (undersaturated families).
+type CompressibilityFamily struct {
+	ID             string
+	Co             func(p, pb, rsb float64, o Oil) (float64, error)
+	RelativeVolume func(p, pb, rsb float64, o Oil) (float64, error)
+}
+
+// DeadViscosityFamily gives the dead-oil viscosity (cP) at o.Temperature.
+type DeadViscosityFamily struct {
+	ID        string
+	Viscosity func(o Oil) (float64, error)
+}
+
+// SatViscosityFamily gives the live-oil viscosity (cP) of a saturated oil holding rs scf/STB
+// whose dead-oil viscosity is muDead.
+type SatViscosityFamily struct {
+	ID        string
+	Viscosity func(muDead, rs float64, o Oil) (float64, error)
+}
+
+// UnderViscosityFamily gives the viscosity (cP) at p ≥ pb of an oil whose viscosity at its
+// bubble point pb is muB.
+type UnderViscosityFamily struct {
+	ID        string
+	Viscosity func(p, pb, muB float64, o Oil) (float64, error)
+}
+
+// PseudoCriticalFamily gives the pseudo-critical pressure (psia) and temperature (°R) of a
+// natural gas from its gravity.
+type PseudoCriticalFamily struct {
+	ID       string
+	Critical func(gasGravity float64) (ppc, tpc float64, err error)
+}
+
+// ZFamily gives the gas compressibility factor from pseudo-reduced temperature and pressure.
+type ZFamily struct {
+	ID string
+	Z  func(tpr, ppr float64) (float64, error)
+}
