@@ -27,7 +27,13 @@ func lasaterMo(api float64) float64 {
 // lasaterPfLow and lasaterPfHigh, differ by about 0.001 (a small gap, not an overlap).
 const lasaterYgBreak = 0.6
 
+// lasaterYgMax bounds the chart fit from above: as yg → 1 the fit gives a finite Pb for an
+// infinite Rs, so beyond yg = 0.95 (Rs of about 5,000 scf/STB or more, far outside Lasater's
+// data) Pb is continued in proportion to Rs.
+const lasaterYgMax = 0.95
+
 var (
+	lasaterPfMax  = 8.26*math.Pow(lasaterYgMax, 3.56) + 1.95
 	lasaterPfLow  = 0.679*math.Exp(2.786*lasaterYgBreak) - 0.323
 	lasaterPfHigh = 8.26*math.Pow(lasaterYgBreak, 3.56) + 1.95
 	lasaterPfZero = 0.679 - 0.323 // pf at yg = 0
@@ -45,7 +51,8 @@ func checkLasater(o Oil) error {
 
 // LasaterBubblePoint returns the bubble-point pressure (psia), Lasater (1958), the published
 // direction: Pb = pf(yg)·(T + 459.67)/γg with the chart fits above. At Rsb = 0 the fit gives
-// pf = 0.356, not zero: the chart does not reach down to dead oil.
+// pf = 0.356, not zero: the chart does not reach down to dead oil. Above yg = 0.95 Pb is
+// continued in proportion to Rsb (see lasaterYgMax).
 func LasaterBubblePoint(rsb float64, o Oil) (float64, error) {
 	if err := checkLasater(o); err != nil {
 		return 0, err
@@ -54,21 +61,28 @@ func LasaterBubblePoint(rsb float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	n := rsb / 379.3
-	yg := n / (n + 350*o.OilGravity()/lasaterMo(o.API))
+	k := 350 * o.OilGravity() / lasaterMo(o.API) // stock-tank oil, lb-mol per STB
+	yg := n / (n + k)
+	tOverG := (o.Temperature + rankine) / o.GasGravity
+	if yg > lasaterYgMax {
+		rsHi := 379.3 * k * lasaterYgMax / (1 - lasaterYgMax)
+		return finite(lasaterPfMax * tOverG * rsb / rsHi)
+	}
 	var pf float64
 	if yg <= lasaterYgBreak {
 		pf = 0.679*math.Exp(2.786*yg) - 0.323
 	} else {
 		pf = 8.26*math.Pow(yg, 3.56) + 1.95
 	}
-	return finite(pf * (o.Temperature + rankine) / o.GasGravity)
+	return finite(pf * tOverG)
 }
 
 // LasaterSolutionGOR returns the solution GOR (scf/STB) at p psia by inverting the chart fits
 // of LasaterBubblePoint in closed form: pf = p·γg/T, then yg from the matching branch, then
-// Rs = 132,755·γo·yg / [Mo·(1 − yg)] (132,755 = 379.3·350). Pressures in the small gap
-// between the branches map to yg = 0.6, and pressures below the dead-oil value of the fit
-// (pf < 0.356) give Rs = 0, so the pair is exactly inverse for every Rsb > 0.
+// Rs = 379.3·(350·γo/Mo)·yg/(1 − yg). Pressures in the small gap between the branches map to
+// yg = 0.6, pressures below the dead-oil value of the fit (pf < 0.356) give Rs = 0, and
+// pressures above pf(0.95) invert the proportional continuation, so the pair is exactly
+// inverse for every Rsb > 0.
 func LasaterSolutionGOR(p float64, o Oil) (float64, error) {
 	if err := checkLasater(o); err != nil {
 		return 0, err
@@ -77,6 +91,11 @@ func LasaterSolutionGOR(p float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	pf := p * o.GasGravity / (o.Temperature + rankine)
+	k := 350 * o.OilGravity() / lasaterMo(o.API)
+	if pf > lasaterPfMax {
+		rsHi := 379.3 * k * lasaterYgMax / (1 - lasaterYgMax)
+		return finite(rsHi * pf / lasaterPfMax)
+	}
 	var yg float64
 	switch {
 	case pf <= lasaterPfZero:
@@ -88,8 +107,5 @@ func LasaterSolutionGOR(p float64, o Oil) (float64, error) {
 	default:
 		yg = math.Pow((pf-1.95)/8.26, 1/3.56)
 	}
-	if yg >= 1 {
-		return 0, inputError("p", p, "below the pressure at which Lasater's gas mole fraction reaches 1")
-	}
-	return finite(379.3 * 350 * o.OilGravity() * yg / (lasaterMo(o.API) * (1 - yg)))
+	return finite(379.3 * k * yg / (1 - yg))
 }

@@ -9,16 +9,18 @@ import "math"
 // Temperatures in °F.
 
 func pfX(o Oil) float64 {
-	return 4.561e-5*math.Pow(o.Temperature, 1.3911) - 7.916e-4*math.Pow(o.API, 1.5410)
+	return 7.916e-4*math.Pow(o.API, 1.5410) - 4.561e-5*math.Pow(o.Temperature, 1.3911)
 }
 
 // PetroskyFarshadBubblePoint returns the bubble-point pressure (psia), Petrosky and Farshad
 // (1993), published direction:
 //
 //	Pb = 112.727·[Rsb^0.577421 / (γg^0.8439 · 10^X) − 12.340],
-//	X = 4.561e−5·T^1.3911 − 7.916e−4·API^1.5410.
+//	X = 7.916e−4·API^1.5410 − 4.561e−5·T^1.3911.
 //
-// Very small Rsb gives a non-positive Pb, which is refused with ErrInput.
+// Because of the −12.340 the published form reaches Pb = 0 at a positive Rsb (50–100 scf/STB
+// for heavy oils); below standard pressure (14.7 psia) the pair is continued linearly through
+// the origin, Pb = 14.7·Rsb/Rs(14.7), so that it stays positive, monotonic and exactly inverse.
 func PetroskyFarshadBubblePoint(rsb float64, o Oil) (float64, error) {
 	if err := checkOilPositiveT(o); err != nil {
 		return 0, err
@@ -26,17 +28,23 @@ func PetroskyFarshadBubblePoint(rsb float64, o Oil) (float64, error) {
 	if err := checkGOR("Rsb", rsb); err != nil {
 		return 0, err
 	}
-	pb := 112.727 * (math.Pow(rsb, 0.577421)/(math.Pow(o.GasGravity, 0.8439)*math.Pow(10, pfX(o))) - 12.340)
-	if !(pb > 0) {
-		return 0, inputError("Rsb", rsb, "large enough for a positive Petrosky–Farshad bubble point")
+	x := pfX(o)
+	if rsLo := pfRs(pLinear, o, x); rsb < rsLo {
+		return finite(pLinear * rsb / rsLo)
 	}
-	return finite(pb)
+	return finite(112.727 * (math.Pow(rsb, 0.577421)/(math.Pow(o.GasGravity, 0.8439)*math.Pow(10, x)) - 12.340))
+}
+
+func pfRs(p float64, o Oil, x float64) float64 {
+	return math.Pow((p/112.727+12.340)*math.Pow(o.GasGravity, 0.8439)*math.Pow(10, x), 1/0.577421)
 }
 
 // PetroskyFarshadSolutionGOR returns the solution GOR (scf/STB) at p psia, the closed-form
 // inverse of PetroskyFarshadBubblePoint:
 //
-//	Rs = [(p/112.727 + 12.340) · γg^0.8439 · 10^X]^(1/0.577421).
+//	Rs = [(p/112.727 + 12.340) · γg^0.8439 · 10^X]^(1/0.577421),
+//
+// continued linearly to Rs = 0 at p = 0 below 14.7 psia (see PetroskyFarshadBubblePoint).
 func PetroskyFarshadSolutionGOR(p float64, o Oil) (float64, error) {
 	if err := checkOilPositiveT(o); err != nil {
 		return 0, err
@@ -44,8 +52,11 @@ func PetroskyFarshadSolutionGOR(p float64, o Oil) (float64, error) {
 	if err := checkPressure("p", p); err != nil {
 		return 0, err
 	}
-	rs := math.Pow((p/112.727+12.340)*math.Pow(o.GasGravity, 0.8439)*math.Pow(10, pfX(o)), 1/0.577421)
-	return finite(rs)
+	x := pfX(o)
+	if p < pLinear {
+		return finite(pfRs(pLinear, o, x) * p / pLinear)
+	}
+	return finite(pfRs(p, o, x))
 }
 
 // PetroskyFarshadOilFVF returns the saturated oil formation volume factor (rb/STB), Petrosky

@@ -14,8 +14,10 @@ import (
 //
 //	Pb = 18.2·[(Rsb/γg)^0.83 · 10^a − 1.4],  a = 0.00091·T − 0.0125·API,
 //
-// T in °F. This is the published direction. Very small Rsb gives a non-positive Pb, which is
-// refused with ErrInput.
+// T in °F. This is the published direction. Because of the −1.4 the published form reaches
+// Pb = 0 at a small positive Rsb; below standard pressure (14.7 psia) the pair is continued
+// linearly through the origin, Pb = 14.7·Rsb/Rs(14.7), so that it stays positive, monotonic and
+// exactly inverse.
 func StandingBubblePoint(rsb float64, o Oil) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
@@ -24,17 +26,27 @@ func StandingBubblePoint(rsb float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	a := 0.00091*o.Temperature - 0.0125*o.API
-	pb := 18.2 * (math.Pow(rsb/o.GasGravity, 0.83)*math.Pow(10, a) - 1.4)
-	if !(pb > 0) {
-		return 0, inputError("Rsb", rsb, "large enough for a positive Standing bubble point")
+	if rsLo := standingRs(pLinear, o); rsb < rsLo {
+		return finite(pLinear * rsb / rsLo)
 	}
-	return finite(pb)
+	return finite(18.2 * (math.Pow(rsb/o.GasGravity, 0.83)*math.Pow(10, a) - 1.4))
+}
+
+// pLinear is the pressure (psia, standard pressure) below which the Standing and
+// Petrosky–Farshad pairs are continued linearly through the origin.
+const pLinear = 14.7
+
+func standingRs(p float64, o Oil) float64 {
+	x := 0.0125*o.API - 0.00091*o.Temperature
+	return o.GasGravity * math.Pow((p/18.2+1.4)*math.Pow(10, x), 1/0.83)
 }
 
 // StandingSolutionGOR returns the solution GOR (scf/STB) at p psia (p at or below the bubble
 // point) as the closed-form inverse of StandingBubblePoint:
 //
-//	Rs = γg·[(p/18.2 + 1.4) · 10^(0.0125·API − 0.00091·T)]^(1/0.83).
+//	Rs = γg·[(p/18.2 + 1.4) · 10^(0.0125·API − 0.00091·T)]^(1/0.83),
+//
+// continued linearly to Rs = 0 at p = 0 below 14.7 psia (see StandingBubblePoint).
 func StandingSolutionGOR(p float64, o Oil) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
@@ -42,9 +54,10 @@ func StandingSolutionGOR(p float64, o Oil) (float64, error) {
 	if err := checkPressure("p", p); err != nil {
 		return 0, err
 	}
-	x := 0.0125*o.API - 0.00091*o.Temperature
-	rs := o.GasGravity * math.Pow((p/18.2+1.4)*math.Pow(10, x), 1/0.83)
-	return finite(rs)
+	if p < pLinear {
+		return finite(standingRs(pLinear, o) * p / pLinear)
+	}
+	return finite(standingRs(p, o))
 }
 
 // StandingOilFVF returns the saturated oil formation volume factor (rb/STB) of oil holding rs

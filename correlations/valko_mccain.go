@@ -40,9 +40,12 @@ func vmRest(o Oil) float64 {
 func vmLnPb(z float64) float64 { return 7.475 + 0.713*z + 0.0075*z*z }
 
 // ValkoMcCainBubblePoint returns the bubble-point pressure (psia), Valkó and McCain (2003),
-// the published direction (see the file comment). Below Rsb = e^vmX1 (about 1.07 scf/STB),
-// where the cubic turns over, Pb is continued linearly to zero; Rsb above about 8,300 scf/STB
-// is refused.
+// the published direction (see the file comment). Outside the interval where the cubic in
+// ln Rsb rises (Rsb below about 1.07 or above about 8,300 scf/STB) the published Pb turns over;
+// there Pb is continued in proportion to Rsb from the end point (Pb = Pb(Rs_end)·Rsb/Rs_end),
+// so that the family is monotonic and total. For light oils with heavy gas the published Pb
+// flattens well before its turning point (a few thousand psia), so higher pressures map to
+// this continuation: such oils are far outside the data.
 func ValkoMcCainBubblePoint(rsb float64, o Oil) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
@@ -54,7 +57,8 @@ func ValkoMcCainBubblePoint(rsb float64, o Oil) (float64, error) {
 	x := math.Log(rsb)
 	switch {
 	case x > vmX2:
-		return 0, inputError("Rsb", rsb, "below about 8,300 scf/STB, where the Valkó–McCain Pb stops rising")
+		pbHi := math.Exp(vmLnPb(vmTerm(&vmC[0], vmX2) + rest))
+		return finite(pbHi * rsb / math.Exp(vmX2))
 	case x < vmX1:
 		pbLo := math.Exp(vmLnPb(vmTerm(&vmC[0], vmX1) + rest))
 		return finite(pbLo * rsb / math.Exp(vmX1))
@@ -66,7 +70,8 @@ func ValkoMcCainBubblePoint(rsb float64, o Oil) (float64, error) {
 // of ValkoMcCainBubblePoint, so that the pair is exactly consistent (the published companion,
 // Velarde et al. 1997, needs Pb and Rsb and is not an inverse; see VelardeSolutionGOR). The
 // quadratic in z is solved in closed form, then the cubic z1(ln Rs) by Brent's method on its
-// rising interval (to 1e−13 in ln Rs).
+// rising interval (to 1e−13 in ln Rs); outside it, the proportional continuation of
+// ValkoMcCainBubblePoint is inverted.
 func ValkoMcCainSolutionGOR(p float64, o Oil) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
@@ -82,14 +87,16 @@ func ValkoMcCainSolutionGOR(p float64, o Oil) (float64, error) {
 		return 0, inputError("p", p, "a pressure the Valkó–McCain form can reach")
 	}
 	z := -2 * cst / (0.713 + math.Sqrt(disc))
-	target := z - vmRest(o)
+	rest := vmRest(o)
+	target := z - rest
 	c := &vmC[0]
 	lo, hi := vmTerm(c, vmX1), vmTerm(c, vmX2)
 	switch {
-	case target > hi:
-		return 0, inputError("p", p, "below the maximum of the Valkó–McCain Pb for this oil")
+	case target >= hi:
+		pbHi := math.Exp(vmLnPb(hi + rest))
+		return finite(math.Exp(vmX2) * p / pbHi)
 	case target <= lo:
-		pbLo := math.Exp(vmLnPb(lo + vmRest(o)))
+		pbLo := math.Exp(vmLnPb(lo + rest))
 		return finite(math.Exp(vmX1) * p / pbLo)
 	}
 	x, err := brent(func(x float64) float64 { return vmTerm(c, x) - target }, vmX1, vmX2, 1e-13, 100)

@@ -98,7 +98,8 @@ func VasquezBeggsBubblePoint(rsb float64, o Oil) (float64, error) {
 //	Bo = 1 + C1·Rs + C2·(T − 60)·(API/γgs) + C3·Rs·(T − 60)·(API/γgs),
 //
 // C1, C2, C3 = 4.677e−4, 1.751e−5, −1.811e−8 for API ≤ 30 and 4.670e−4, 1.100e−5, 1.337e−9
-// above, T °F. p is not used.
+// above, T °F. p is not used. With the API ≤ 30 set, C2 + C3·Rs < 0 above Rs ≈ 967 scf/STB,
+// so there Bo falls with temperature: a property of the published fit.
 func VasquezBeggsOilFVF(p, rs float64, o Oil) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
