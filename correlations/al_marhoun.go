@@ -1,7 +1,5 @@
 package correlations
 
-import "math"
-
 // Al-Marhoun (1988): M.A. Al-Marhoun, "PVT Correlations for Middle East Crude Oils", J. Pet.
 // Tech. 40 (May 1988) 650–666, SPE 13718. 160 bubble points from 69 Middle East reservoirs:
 // Pb 130–3,573 psia, T 74–240 °F, Rsb 26–1,602 scf/STB, 19.4–44.6 °API, γg 0.752–1.367.
@@ -19,8 +17,8 @@ func AlMarhounBubblePoint(rsb float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	t := o.Temperature + rankine
-	pb := 5.38088e-3 * math.Pow(rsb, 0.715082) * math.Pow(o.GasGravity, -1.87784) *
-		math.Pow(o.OilGravity(), 3.1437) * math.Pow(t, 1.32657)
+	pb := 5.38088e-3 * pow(rsb, 0.715082) * pow(o.GasGravity, -1.87784) *
+		pow(o.OilGravity(), 3.1437) * pow(t, 1.32657)
 	return finite(pb)
 }
 
@@ -36,8 +34,8 @@ func AlMarhounSolutionGOR(p float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	t := o.Temperature + rankine
-	k := 5.38088e-3 * math.Pow(o.GasGravity, -1.87784) * math.Pow(o.OilGravity(), 3.1437) * math.Pow(t, 1.32657)
-	return finite(math.Pow(p/k, 1/0.715082))
+	k := 5.38088e-3 * pow(o.GasGravity, -1.87784) * pow(o.OilGravity(), 3.1437) * pow(t, 1.32657)
+	return finite(pow(p/k, 1/0.715082))
 }
 
 // AlMarhounOilFVF returns the saturated oil formation volume factor (rb/STB), Al-Marhoun
@@ -55,6 +53,6 @@ func AlMarhounOilFVF(p, rs float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	t := o.Temperature + rankine
-	f := math.Pow(rs, 0.742390) * math.Pow(o.GasGravity, 0.323294) * math.Pow(o.OilGravity(), -1.202040)
+	f := pow(rs, 0.742390) * pow(o.GasGravity, 0.323294) * pow(o.OilGravity(), -1.202040)
 	return finite(0.497069 + 0.862963e-3*t + 0.182594e-2*f + 0.318099e-5*f*f)
 }

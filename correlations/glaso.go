@@ -30,11 +30,11 @@ func GlasoBubblePoint(rsb float64, o Oil) (float64, error) {
 	if rsb == 0 {
 		return 0, inputError("Rsb", rsb, "> 0 for Glasø's logarithmic form")
 	}
-	x := math.Log10(math.Pow(rsb/o.GasGravity, 0.816) * math.Pow(o.Temperature, 0.172) / math.Pow(o.API, 0.989))
+	x := math.Log10(pow(rsb/o.GasGravity, 0.816) * pow(o.Temperature, 0.172) / pow(o.API, 0.989))
 	if x > glasoLogPbStarMax {
 		return 0, inputError("Rsb", rsb, "below the maximum of Glasø's log-quadratic (Pb < about 19,300 psia)")
 	}
-	return finite(math.Pow(10, 1.7669+1.7447*x-0.30218*x*x))
+	return finite(pow10(1.7669+1.7447*x-0.30218*x*x))
 }
 
 // GlasoSolutionGOR returns the solution GOR (scf/STB) at p psia as the closed-form inverse of
@@ -58,8 +58,8 @@ func GlasoSolutionGOR(p float64, o Oil) (float64, error) {
 	}
 	// Rising branch, x ≤ b/(−2a), written without cancellation near log p = c.
 	x := 2 * (math.Log10(p) - c) / (b + math.Sqrt(disc))
-	pbStar := math.Pow(10, x)
-	rs := o.GasGravity * math.Pow(pbStar*math.Pow(o.API, 0.989)/math.Pow(o.Temperature, 0.172), 1/0.816)
+	pbStar := pow10(x)
+	rs := o.GasGravity * pow(pbStar*pow(o.API, 0.989)/pow(o.Temperature, 0.172), 1/0.816)
 	return finite(rs)
 }
 
@@ -75,10 +75,10 @@ func GlasoOilFVF(p, rs float64, o Oil) (float64, error) {
 	if err := checkGOR("Rs", rs); err != nil {
 		return 0, err
 	}
-	f := rs*math.Pow(o.GasGravity/o.OilGravity(), 0.526) + 0.968*o.Temperature
+	f := rs*pow(o.GasGravity/o.OilGravity(), 0.526) + 0.968*o.Temperature
 	if !(f > 0) {
 		return 0, inputError("temperature", o.Temperature, "high enough for a positive Glasø correlating number")
 	}
 	x := math.Log10(f)
-	return finite(1 + math.Pow(10, -6.58511+2.91329*x-0.27683*x*x))
+	return finite(1 + pow10(-6.58511+2.91329*x-0.27683*x*x))
 }

@@ -25,7 +25,7 @@ func ksGasGravity(o Oil) (float64, error) {
 	if !(tsep > 0) {
 		return 0, inputError("separator temperature", tsep, "> 0 °F for the Kartoatmodjo–Schmidt normalisation")
 	}
-	g := o.GasGravity * (1 + 0.1595*math.Pow(o.API, 0.4078)*math.Pow(tsep, -0.2466)*math.Log10(psep/114.7))
+	g := o.GasGravity * (1 + 0.1595*pow(o.API, 0.4078)*pow(tsep, -0.2466)*math.Log10(psep/114.7))
 	if !(g > 0) {
 		return 0, inputError("separator pressure", psep, "a value for which the normalised gas gravity stays > 0")
 	}
@@ -42,7 +42,7 @@ func ksRsFactor(o Oil) (k float64, c4 float64, err error) {
 	if o.API <= 30 {
 		c = &ksHeavy
 	}
-	return c.c1 * math.Pow(g, c.c2) * math.Pow(10, c.c3*o.API/(o.Temperature+460)), c.c4, nil
+	return c.c1 * pow(g, c.c2) * pow10(c.c3*o.API/(o.Temperature+460)), c.c4, nil
 }
 
 // KartoatmodjoSchmidtSolutionGOR returns the solution GOR (scf/STB) at p psia, Kartoatmodjo
@@ -63,7 +63,7 @@ func KartoatmodjoSchmidtSolutionGOR(p float64, o Oil) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return finite(k * math.Pow(p, 1/c4))
+	return finite(k * pow(p, 1/c4))
 }
 
 // KartoatmodjoSchmidtBubblePoint returns the bubble-point pressure (psia), the closed-form
@@ -79,7 +79,7 @@ func KartoatmodjoSchmidtBubblePoint(rsb float64, o Oil) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return finite(math.Pow(rsb/k, c4))
+	return finite(pow(rsb/k, c4))
 }
 
 // KartoatmodjoSchmidtOilFVF returns the saturated oil formation volume factor (rb/STB),
@@ -99,9 +99,9 @@ func KartoatmodjoSchmidtOilFVF(p, rs float64, o Oil) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	f := math.Pow(rs, 0.755)*math.Pow(g, 0.25)*math.Pow(o.OilGravity(), -1.5) + 0.45*o.Temperature
+	f := pow(rs, 0.755)*pow(g, 0.25)*pow(o.OilGravity(), -1.5) + 0.45*o.Temperature
 	if !(f > 0) {
 		return 0, inputError("temperature", o.Temperature, "high enough for a positive Kartoatmodjo–Schmidt correlating number")
 	}
-	return finite(0.98496 + 1e-4*math.Pow(f, 1.5))
+	return finite(0.98496 + 1e-4*pow(f, 1.5))
 }

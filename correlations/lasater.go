@@ -20,7 +20,7 @@ func lasaterMo(api float64) float64 {
 	if api <= 40 {
 		return 630 - 10*api
 	}
-	return 73110 * math.Pow(api, -1.562)
+	return 73110 * pow(api, -1.562)
 }
 
 // lasaterYgBreak is the mole fraction where the two chart fits meet; their values there,
@@ -33,9 +33,9 @@ const lasaterYgBreak = 0.6
 const lasaterYgMax = 0.95
 
 var (
-	lasaterPfMax  = 8.26*math.Pow(lasaterYgMax, 3.56) + 1.95
+	lasaterPfMax  = 8.26*pow(lasaterYgMax, 3.56) + 1.95
 	lasaterPfLow  = 0.679*math.Exp(2.786*lasaterYgBreak) - 0.323
-	lasaterPfHigh = 8.26*math.Pow(lasaterYgBreak, 3.56) + 1.95
+	lasaterPfHigh = 8.26*pow(lasaterYgBreak, 3.56) + 1.95
 	lasaterPfZero = 0.679 - 0.323 // pf at yg = 0
 )
 
@@ -72,7 +72,7 @@ func LasaterBubblePoint(rsb float64, o Oil) (float64, error) {
 	if yg <= lasaterYgBreak {
 		pf = 0.679*math.Exp(2.786*yg) - 0.323
 	} else {
-		pf = 8.26*math.Pow(yg, 3.56) + 1.95
+		pf = 8.26*pow(yg, 3.56) + 1.95
 	}
 	return finite(pf * tOverG)
 }
@@ -105,7 +105,7 @@ func LasaterSolutionGOR(p float64, o Oil) (float64, error) {
 	case pf < lasaterPfHigh:
 		yg = lasaterYgBreak
 	default:
-		yg = math.Pow((pf-1.95)/8.26, 1/3.56)
+		yg = pow((pf-1.95)/8.26, 1/3.56)
 	}
 	return finite(379.3 * k * yg / (1 - yg))
 }

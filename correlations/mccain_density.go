@@ -65,11 +65,11 @@ func McCainSaturatedOilDensity(p, rs float64, o Oil) (float64, error) {
 		}
 	}
 	pk := p / 1000
-	rhoBS := rho + (0.167+16.181*math.Pow(10, -0.0425*rho))*pk -
-		0.01*(0.299+263*math.Pow(10, -0.0603*rho))*pk*pk
+	rhoBS := rho + (0.167+16.181*pow10(-0.0425*rho))*pk -
+		0.01*(0.299+263*pow10(-0.0603*rho))*pk*pk
 	dt := o.Temperature - 60
-	dRhoT := (0.00302+1.505*math.Pow(rhoBS, -0.951))*math.Pow(dt, 0.938) -
-		(0.0216-0.0233*math.Pow(10, -0.0161*rhoBS))*math.Pow(dt, 0.475)
+	dRhoT := (0.00302+1.505*pow(rhoBS, -0.951))*pow(dt, 0.938) -
+		(0.0216-0.0233*pow10(-0.0161*rhoBS))*pow(dt, 0.475)
 	rhoO := rhoBS - dRhoT
 	if !(rhoO > 0) {
 		return 0, ErrNotFinite

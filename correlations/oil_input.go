@@ -72,3 +72,11 @@ func sepConditions(o Oil) (psep, tsep float64) {
 	}
 	return psep, tsep
 }
+
+// pow returns x^y for x ≥ 0 as exp(y·ln x): faster than math.Pow, which spends most of its
+// time on special cases the correlations never meet, and accurate to a few ulps for the
+// exponents used here. pow(0, y) is 0 for y > 0 and +Inf for y < 0, as for math.Pow.
+func pow(x, y float64) float64 { return math.Exp(y * math.Log(x)) }
+
+// pow10 returns 10^x.
+func pow10(x float64) float64 { return math.Exp(x * math.Ln10) }

@@ -9,7 +9,7 @@ import "math"
 // Temperatures in °F.
 
 func pfX(o Oil) float64 {
-	return 7.916e-4*math.Pow(o.API, 1.5410) - 4.561e-5*math.Pow(o.Temperature, 1.3911)
+	return 7.916e-4*pow(o.API, 1.5410) - 4.561e-5*pow(o.Temperature, 1.3911)
 }
 
 // PetroskyFarshadBubblePoint returns the bubble-point pressure (psia), Petrosky and Farshad
@@ -29,14 +29,15 @@ func PetroskyFarshadBubblePoint(rsb float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	x := pfX(o)
-	if rsLo := pfRs(pLinear, o, x); rsb < rsLo {
-		return finite(pLinear * rsb / rsLo)
+	pb := 112.727 * (pow(rsb, 0.577421)/(pow(o.GasGravity, 0.8439)*pow10(x)) - 12.340)
+	if pb < pLinear { // equivalent to rsb < Rs(14.7), the published form being monotonic
+		return finite(pLinear * rsb / pfRs(pLinear, o, x))
 	}
-	return finite(112.727 * (math.Pow(rsb, 0.577421)/(math.Pow(o.GasGravity, 0.8439)*math.Pow(10, x)) - 12.340))
+	return finite(pb)
 }
 
 func pfRs(p float64, o Oil, x float64) float64 {
-	return math.Pow((p/112.727+12.340)*math.Pow(o.GasGravity, 0.8439)*math.Pow(10, x), 1/0.577421)
+	return pow((p/112.727+12.340)*pow(o.GasGravity, 0.8439)*pow10(x), 1/0.577421)
 }
 
 // PetroskyFarshadSolutionGOR returns the solution GOR (scf/STB) at p psia, the closed-form
@@ -72,16 +73,16 @@ func PetroskyFarshadOilFVF(p, rs float64, o Oil) (float64, error) {
 	if err := checkGOR("Rs", rs); err != nil {
 		return 0, err
 	}
-	f := math.Pow(rs, 0.3738)*math.Pow(o.GasGravity, 0.2914)/math.Pow(o.OilGravity(), 0.6265) +
-		0.24626*math.Pow(o.Temperature, 0.5371)
-	return finite(1.0113 + 7.2046e-5*math.Pow(f, 3.0936))
+	f := pow(rs, 0.3738)*pow(o.GasGravity, 0.2914)/pow(o.OilGravity(), 0.6265) +
+		0.24626*pow(o.Temperature, 0.5371)
+	return finite(1.0113 + 7.2046e-5*pow(f, 3.0936))
 }
 
 // pfCoFactor returns A = 1.705e−7 · Rsb^0.69357 · γg^0.1885 · API^0.3272 · T^0.6729, so that
 // co = A·p^−0.5906.
 func pfCoFactor(rsb float64, o Oil) float64 {
-	return 1.705e-7 * math.Pow(rsb, 0.69357) * math.Pow(o.GasGravity, 0.1885) *
-		math.Pow(o.API, 0.3272) * math.Pow(o.Temperature, 0.6729)
+	return 1.705e-7 * pow(rsb, 0.69357) * pow(o.GasGravity, 0.1885) *
+		pow(o.API, 0.3272) * pow(o.Temperature, 0.6729)
 }
 
 // PetroskyFarshadCo returns the undersaturated oil compressibility (1/psi) at p ≥ pb,
@@ -95,7 +96,7 @@ func PetroskyFarshadCo(p, pb, rsb float64, o Oil) (float64, error) {
 	if err := checkUndersaturated(p, pb, rsb); err != nil {
 		return 0, err
 	}
-	return finite(pfCoFactor(rsb, o) * math.Pow(p, -0.5906))
+	return finite(pfCoFactor(rsb, o) * pow(p, -0.5906))
 }
 
 // PetroskyFarshadRelativeVolume returns Bo(p)/Bo(pb) for p ≥ pb from PetroskyFarshadCo
@@ -108,6 +109,6 @@ func PetroskyFarshadRelativeVolume(p, pb, rsb float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	const e = 1 - 0.5906
-	integral := pfCoFactor(rsb, o) / e * (math.Pow(p, e) - math.Pow(pb, e))
+	integral := pfCoFactor(rsb, o) / e * (pow(p, e) - pow(pb, e))
 	return finite(math.Exp(-integral))
 }

@@ -26,10 +26,11 @@ func StandingBubblePoint(rsb float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	a := 0.00091*o.Temperature - 0.0125*o.API
-	if rsLo := standingRs(pLinear, o); rsb < rsLo {
-		return finite(pLinear * rsb / rsLo)
+	pb := 18.2 * (pow(rsb/o.GasGravity, 0.83)*pow10(a) - 1.4)
+	if pb < pLinear { // equivalent to rsb < Rs(14.7), the published form being monotonic
+		return finite(pLinear * rsb / standingRs(pLinear, o))
 	}
-	return finite(18.2 * (math.Pow(rsb/o.GasGravity, 0.83)*math.Pow(10, a) - 1.4))
+	return finite(pb)
 }
 
 // pLinear is the pressure (psia, standard pressure) below which the Standing and
@@ -38,7 +39,7 @@ const pLinear = 14.7
 
 func standingRs(p float64, o Oil) float64 {
 	x := 0.0125*o.API - 0.00091*o.Temperature
-	return o.GasGravity * math.Pow((p/18.2+1.4)*math.Pow(10, x), 1/0.83)
+	return o.GasGravity * pow((p/18.2+1.4)*pow10(x), 1/0.83)
 }
 
 // StandingSolutionGOR returns the solution GOR (scf/STB) at p psia (p at or below the bubble
@@ -78,5 +79,5 @@ func StandingOilFVF(p, rs float64, o Oil) (float64, error) {
 	if !(f > 0) {
 		return 0, inputError("temperature", o.Temperature, "high enough for a positive Standing correlating number")
 	}
-	return finite(0.9759 + 1.2e-4*math.Pow(f, 1.2))
+	return finite(0.9759 + 1.2e-4*pow(f, 1.2))
 }

@@ -119,7 +119,7 @@ var (
 )
 
 func velTerm(k *[5]float64, o Oil, pbg float64) float64 {
-	return k[0] * math.Pow(o.GasGravity, k[1]) * math.Pow(o.API, k[2]) * math.Pow(o.Temperature, k[3]) * math.Pow(pbg, k[4])
+	return k[0] * pow(o.GasGravity, k[1]) * pow(o.API, k[2]) * pow(o.Temperature, k[3]) * pow(pbg, k[4])
 }
 
 // VelardeSolutionGOR returns the solution GOR (scf/STB) at p psia of an oil with bubble point
@@ -154,5 +154,5 @@ func VelardeSolutionGOR(p, pb, rsb float64, o Oil) (float64, error) {
 	a1 := velTerm(&velA, o, pbg)
 	a2 := velTerm(&velB, o, pbg)
 	a3 := velTerm(&velC, o, pbg)
-	return finite(rsb * (a1*math.Pow(pr, a2) + (1-a1)*math.Pow(pr, a3)))
+	return finite(rsb * (a1*pow(pr, a2) + (1-a1)*pow(pr, a3)))
 }

@@ -70,7 +70,7 @@ func VasquezBeggsSolutionGOR(p float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	k := vbCoefs(o.API)
-	return finite(k.c1 * g * math.Pow(p, k.c2) * math.Exp(k.c3*o.API/(o.Temperature+460)))
+	return finite(k.c1 * g * pow(p, k.c2) * math.Exp(k.c3*o.API/(o.Temperature+460)))
 }
 
 // VasquezBeggsBubblePoint returns the bubble-point pressure (psia) for rsb scf/STB, the
@@ -89,7 +89,7 @@ func VasquezBeggsBubblePoint(rsb float64, o Oil) (float64, error) {
 		return 0, err
 	}
 	k := vbCoefs(o.API)
-	return finite(math.Pow(rsb/(k.c1*g*math.Exp(k.c3*o.API/(o.Temperature+460))), 1/k.c2))
+	return finite(pow(rsb/(k.c1*g*math.Exp(k.c3*o.API/(o.Temperature+460))), 1/k.c2))
 }
 
 // VasquezBeggsOilFVF returns the saturated oil formation volume factor (rb/STB), Vasquez and
