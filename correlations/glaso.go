@@ -34,7 +34,7 @@ func GlasoBubblePoint(rsb float64, o Oil) (float64, error) {
 	if x > glasoLogPbStarMax {
 		return 0, inputError("Rsb", rsb, "below the maximum of Glasø's log-quadratic (Pb < about 19,300 psia)")
 	}
-	return finite(pow10(1.7669+1.7447*x-0.30218*x*x))
+	return finite(pow10(1.7669 + 1.7447*x - 0.30218*x*x))
 }
 
 // GlasoSolutionGOR returns the solution GOR (scf/STB) at p psia as the closed-form inverse of

@@ -25,7 +25,10 @@ func ksGasGravity(o Oil) (float64, error) {
 	if !(tsep > 0) {
 		return 0, inputError("separator temperature", tsep, "> 0 °F for the Kartoatmodjo–Schmidt normalisation")
 	}
-	g := o.GasGravity * (1 + 0.1595*pow(o.API, 0.4078)*pow(tsep, -0.2466)*math.Log10(psep/114.7))
+	if psep == defaultSepPressure {
+		return o.GasGravity, nil // log10(1) = 0: no correction
+	}
+	g := o.GasGravity * (1 + 0.1595*math.Exp(0.4078*math.Log(o.API)-0.2466*math.Log(tsep))*math.Log10(psep/114.7))
 	if !(g > 0) {
 		return 0, inputError("separator pressure", psep, "a value for which the normalised gas gravity stays > 0")
 	}
@@ -42,7 +45,8 @@ func ksRsFactor(o Oil) (k float64, c4 float64, err error) {
 	if o.API <= 30 {
 		c = &ksHeavy
 	}
-	return c.c1 * pow(g, c.c2) * pow10(c.c3*o.API/(o.Temperature+460)), c.c4, nil
+	// One exponential for γg100^C2 · 10^(C3·API/(T + 460)).
+	return c.c1 * math.Exp(c.c2*math.Log(g)+math.Ln10*c.c3*o.API/(o.Temperature+460)), c.c4, nil
 }
 
 // KartoatmodjoSchmidtSolutionGOR returns the solution GOR (scf/STB) at p psia, Kartoatmodjo
@@ -99,9 +103,9 @@ func KartoatmodjoSchmidtOilFVF(p, rs float64, o Oil) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	f := pow(rs, 0.755)*pow(g, 0.25)*pow(o.OilGravity(), -1.5) + 0.45*o.Temperature
+	f := math.Exp(0.755*math.Log(rs)+0.25*math.Log(g)-1.5*math.Log(o.OilGravity())) + 0.45*o.Temperature
 	if !(f > 0) {
 		return 0, inputError("temperature", o.Temperature, "high enough for a positive Kartoatmodjo–Schmidt correlating number")
 	}
-	return finite(0.98496 + 1e-4*pow(f, 1.5))
+	return finite(0.98496 + 1e-4*f*math.Sqrt(f))
 }

@@ -81,8 +81,8 @@ func PetroskyFarshadOilFVF(p, rs float64, o Oil) (float64, error) {
 // pfCoFactor returns A = 1.705e−7 · Rsb^0.69357 · γg^0.1885 · API^0.3272 · T^0.6729, so that
 // co = A·p^−0.5906.
 func pfCoFactor(rsb float64, o Oil) float64 {
-	return 1.705e-7 * pow(rsb, 0.69357) * pow(o.GasGravity, 0.1885) *
-		pow(o.API, 0.3272) * pow(o.Temperature, 0.6729)
+	return 1.705e-7 * math.Exp(0.69357*math.Log(rsb)+0.1885*math.Log(o.GasGravity)+
+		0.3272*math.Log(o.API)+0.6729*math.Log(o.Temperature))
 }
 
 // PetroskyFarshadCo returns the undersaturated oil compressibility (1/psi) at p ≥ pb,
