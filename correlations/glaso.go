@@ -1,0 +1,84 @@
+package correlations
+
+import (
+	"math"
+)
+
+// Glasø (1980): Ø. Glasø, "Generalized Pressure-Volume-Temperature Correlations", J. Pet. Tech.
+// 32 (May 1980) 785–795, SPE 8016. 45 North Sea oil samples: Pb 165–7,142 psia, T 80–280 °F,
+// Rsb 90–2,637 scf/STB, 22.3–48.1 °API, γg 0.650–1.276 (ranges from memory).
+
+// glasoLogPbStarMax is log10 of the correlating number at which Glasø's log-quadratic for Pb reaches its
+// maximum (log10 Pb* = 1.7447/(2·0.30218)); above it the fitted Pb falls, so the
+// correlation is only used below it (Pb < about 19,300 psia).
+const glasoLogPbStarMax = 1.7447 / (2 * 0.30218)
+
+// GlasoBubblePoint returns the bubble-point pressure (psia), Glasø (1980), published
+// direction:
+//
+//	log Pb = 1.7669 + 1.7447·log Pb* − 0.30218·(log Pb*)²,  Pb* = (Rsb/γg)^0.816 · T^0.172 / API^0.989,
+//
+// T °F, logarithms base 10 (the paper's paraffinicity exponent 0.989 for "normal" oils; no
+// correction for non-hydrocarbons). Rsb beyond the maximum of the quadratic is refused.
+func GlasoBubblePoint(rsb float64, o Oil) (float64, error) {
+	if err := checkOilPositiveT(o); err != nil {
+		return 0, err
+	}
+	if err := checkGOR("Rsb", rsb); err != nil {
+		return 0, err
+	}
+	if rsb == 0 {
+		return 0, inputError("Rsb", rsb, "> 0 for Glasø's logarithmic form")
+	}
+	x := math.Log10(pow(rsb/o.GasGravity, 0.816) * pow(o.Temperature, 0.172) / pow(o.API, 0.989))
+	if x > glasoLogPbStarMax {
+		return 0, inputError("Rsb", rsb, "below the maximum of Glasø's log-quadratic (Pb < about 19,300 psia)")
+	}
+	return finite(pow10(1.7669 + 1.7447*x - 0.30218*x*x))
+}
+
+// GlasoSolutionGOR returns the solution GOR (scf/STB) at p psia as the closed-form inverse of
+// GlasoBubblePoint, solving the quadratic for log Pb* on its rising branch:
+//
+//	log Pb* = 2.8869 − (14.1811 − 3.3093·log p)^0.5,  Rs = γg·[Pb* · API^0.989 / T^0.172]^(1/0.816),
+//
+// with the constants computed from the Pb coefficients rather than the rounded printed ones,
+// so that the pair is exactly inverse. p above about 19,300 psia is refused.
+func GlasoSolutionGOR(p float64, o Oil) (float64, error) {
+	if err := checkOilPositiveT(o); err != nil {
+		return 0, err
+	}
+	if err := checkPressure("p", p); err != nil {
+		return 0, err
+	}
+	const a, b, c = -0.30218, 1.7447, 1.7669
+	disc := b*b - 4*a*(c-math.Log10(p))
+	if disc < 0 {
+		return 0, inputError("p", p, "below the maximum of Glasø's log-quadratic (about 19,300 psia)")
+	}
+	// Rising branch, x ≤ b/(−2a), written without cancellation near log p = c.
+	x := 2 * (math.Log10(p) - c) / (b + math.Sqrt(disc))
+	pbStar := pow10(x)
+	rs := o.GasGravity * pow(pbStar*pow(o.API, 0.989)/pow(o.Temperature, 0.172), 1/0.816)
+	return finite(rs)
+}
+
+// GlasoOilFVF returns the saturated oil formation volume factor (rb/STB), Glasø (1980):
+//
+//	log(Bo − 1) = −6.58511 + 2.91329·log Bo* − 0.27683·(log Bo*)²,  Bo* = Rs·(γg/γo)^0.526 + 0.968·T,
+//
+// T °F, logarithms base 10. Data Bob 1.087–2.588 rb/STB (from memory). p is not used.
+func GlasoOilFVF(p, rs float64, o Oil) (float64, error) {
+	if err := checkOil(o); err != nil {
+		return 0, err
+	}
+	if err := checkGOR("Rs", rs); err != nil {
+		return 0, err
+	}
+	f := rs*pow(o.GasGravity/o.OilGravity(), 0.526) + 0.968*o.Temperature
+	if !(f > 0) {
+		return 0, inputError("temperature", o.Temperature, "high enough for a positive Glasø correlating number")
+	}
+	x := math.Log10(f)
+	return finite(1 + pow10(-6.58511+2.91329*x-0.27683*x*x))
+}
