@@ -188,7 +188,7 @@ func TestParseValue(t *testing.T) {
 		{Pressure, "2000 psia", 2000, tolExact},
 		{Pressure, " 2000 ", 2000, tolExact}, // a plain number is in field units
 		{Pressure, "1985.304psig", 2000, tolExact},
-		{Pressure, "150bar", 150 * 14.50377, tolNIST7},     // NIST SP 811 B.8
+		{Pressure, "150bar", 150 * 14.50377, tolNIST7},       // NIST SP 811 B.8
 		{Pressure, "13.79MPa", 13.79e3 / 6.894757, tolNIST7}, // NIST SP 811 B.8
 		{Pressure, "2e3psia", 2000, tolExact},
 		{Temperature, "93degC", 199.4, tolExact}, // NIST SP 811 B.9
@@ -279,4 +279,3 @@ func TestQuantityNames(t *testing.T) {
 		t.Error("out-of-range Quantity has units")
 	}
 }
-
