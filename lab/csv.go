@@ -302,8 +302,6 @@ func exampleHeader(specs []colSpec) string {
 	return strings.Join(cells, ",")
 }
 
-func (t *table) has(name string) bool { return t.cols[name] != nil }
-
 // text returns the trimmed text of a column in r, "" when the table lacks it.
 func (t *table) text(r record, name string) string {
 	c := t.cols[name]
