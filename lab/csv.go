@@ -125,8 +125,12 @@ func splitHeader(cell string) (name, unit string, hasUnit, ok bool) {
 // normName folds a column name or key for comparison: lower case, '_' and '-' as spaces,
 // runs of spaces as one.
 func normName(s string) string {
-	s = strings.ToLower(s)
-	s = strings.NewReplacer("_", " ", "-", " ").Replace(s)
+	s = strings.Map(func(r rune) rune {
+		if r == '_' || r == '-' {
+			return ' '
+		}
+		return unicode.ToLower(r)
+	}, s)
 	return strings.Join(strings.Fields(s), " ")
 }
 
@@ -420,7 +424,7 @@ func parseNumber(cell string) (float64, *ParseError) {
 	case isRangeErr(err):
 		return 0, &ParseError{Err: ErrNotFinite, Msg: fmt.Sprintf("%q is beyond the range of numbers", cell)}
 	}
-	pe := &ParseError{Err: ErrNumber, Msg: fmt.Sprintf("%q is not a number", truncate(cell, 40))}
+	pe := &ParseError{Err: ErrNumber, Msg: fmt.Sprintf("%q is not a number; expected a number such as 1234.5 or 1.2e3", truncate(cell, 40))}
 	switch {
 	case strings.Count(cell, ",") == 1 && !strings.Contains(cell, "."):
 		pe.Hint = "use a point as the decimal separator (12.5, not 12,5)"

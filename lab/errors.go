@@ -45,7 +45,7 @@ var (
 // ParseError reports a problem in a report folder, where it is and, for a recognisable
 // slip, how to fix it. Its Error method reads
 //
-//	lab: dl.csv:7:2 (Rsd [scf/STB]): "12,5" is not a number; hint: use a point as the decimal separator
+//	lab: dl.csv:7:2 (Rsd [scf/STB]): "12,5" is not a number; expected a number such as 1234.5 or 1.2e3; hint: use a point as the decimal separator (12.5, not 12,5)
 //
 // Unwrap returns Err, always one of the sentinel errors of this package.
 type ParseError struct {

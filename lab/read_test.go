@@ -138,7 +138,7 @@ func TestReadBad(t *testing.T) {
 		{"unknown-unit", ErrUnknownUnit, "dl.csv", 2, 2, `"bbl/day" is not a GOR unit (accepted: scf/STB, sm3/sm3)`},
 		{"no-unit", ErrMissingUnit, "dl.csv", 2, 1, "hint: write it as pressure [psia]"},
 		{"psi-ambiguous", ErrUnknownUnit, "dl.csv", 2, 1, "write psia or psig"},
-		{"text-in-number", ErrNumber, "dl.csv", 4, 2, `(Rsd [scf/STB]): "four hundred" is not a number`},
+		{"text-in-number", ErrNumber, "dl.csv", 4, 2, `(Rsd [scf/STB]): "four hundred" is not a number; expected a number`},
 		{"unit-in-cell", ErrNumber, "dl.csv", 4, 2, "write the unit in the header"},
 		{"decimal-comma", ErrRagged, "dl.csv", 4, 0, "expected 3 cells as in the header (line 2), got 4; hint: a decimal comma"},
 		{"nan", ErrNotFinite, "dl.csv", 4, 3, `"NaN" is not a finite number`},
@@ -420,3 +420,38 @@ func TestParseErrorFormat(t *testing.T) {
 }
 
 var _ io.Reader = (*countingFile)(nil)
+
+var sinkReport *Report
+
+// BenchmarkReadFS reads the basic fixture (five small tables) from memory.
+func BenchmarkReadFS(b *testing.B) {
+	fsys := fstest.MapFS{}
+	for _, n := range []string{FluidFile, DLFile, SeparatorFile, CCEFile, ViscosityFile} {
+		data, err := os.ReadFile(filepath.Join("../testdata/good/basic", n))
+		if err != nil {
+			b.Fatal(err)
+		}
+		fsys[n] = &fstest.MapFile{Data: data}
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		r, err := ReadFS(fsys, ".")
+		if err != nil {
+			b.Fatal(err)
+		}
+		sinkReport = r
+	}
+}
+
+var sinkFloat float64
+
+func BenchmarkParseValue(b *testing.B) {
+	b.ReportAllocs()
+	for b.Loop() {
+		v, err := ParseValue(Pressure, "150 bara")
+		if err != nil {
+			b.Fatal(err)
+		}
+		sinkFloat = v
+	}
+}
