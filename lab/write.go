@@ -138,26 +138,7 @@ func WriteFolder(dir string, r *Report, opts WriteOptions) error {
 }
 
 func writeAtomic(dir, name, content string) error {
-	f, err := os.CreateTemp(dir, "."+name+".*.tmp")
-	if err != nil {
-		return fmt.Errorf("lab: %w", err)
-	}
-	tmp := f.Name()
-	_, err = f.WriteString(content)
-	if err == nil {
-		err = f.Sync()
-	}
-	if cerr := f.Close(); err == nil {
-		err = cerr
-	}
-	if err == nil {
-		err = os.Rename(tmp, filepath.Join(dir, name))
-	}
-	if err != nil {
-		os.Remove(tmp)
-		return fmt.Errorf("lab: writing %s: %w", name, err)
-	}
-	return nil
+	return WriteFileAtomic(filepath.Join(dir, name), []byte(content), true)
 }
 
 // csvWriter builds CSV text. It quotes a cell that holds a comma, a quote, a line end or
