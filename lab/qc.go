@@ -83,7 +83,8 @@ const (
 //	sep-selected-missing, sep-bofb-above-bodb, sep-gor-negative (error)
 //	sep-no-bofb, sep-api-mismatch (warning)
 //	pb-psig-psia (warning); pb-dl-mismatch, pb-cce-mismatch (note, warning or error)
-//	cce-not-monotonic (error); cce-y-outlier, cce-y-psat-mismatch (warning)
+//	cce-not-monotonic (error); cce-y-outlier, cce-y-psat-mismatch, cce-density-mismatch,
+//	pb-density-mismatch (warning)
 //	cce-no-sat-point, cce-y-too-few, cce-y-not-straight (note)
 //	adjust-no-separator (warning), adjust-rs-clamped (note)
 //
@@ -630,6 +631,7 @@ func (q *qcReport) cce() {
 	satLine := 0
 	if c, ok := q.cceSatPoint(); ok {
 		psat, satLine = c.Pressure, c.Line
+		q.cceDensity(c)
 	} else {
 		q.add(Note, qcCCEFile, 0, "cce-no-sat-point", "give the saturation point (V/Vsat = 1) in cce.csv",
 			"no CCE point has V/Vsat = 1; the Y-function uses fluid.csv's saturation pressure, %.6g psia", psat)
@@ -660,6 +662,44 @@ func (q *qcReport) cce() {
 		q.add(Warning, qcCCEFile, satLine, "cce-y-psat-mismatch", "check the saturation pressure the CCE volumes are normalised at",
 			"the Y-function is straightest with Psat = %.6g psia, %.3g %% from the CCE's %.6g psia",
 			est.Psat, 100*qcRelDiff(est.Psat, psat), psat)
+	}
+}
+
+// cceDensity checks the CCE densities: the oil at Pb is one oil, so the CCE density at the
+// saturation point equals the DL's first-stage density; and a constant mass means
+// ρ(p)·(V/Vsat) is the same at every point at and above Pb. That product is anchored on its
+// median (with three or more points) so that one wrong density is the one reported. Both
+// within qcDensityTol.
+func (q *qcReport) cceDensity(sat CCEPoint) {
+	if b, ok := q.bubbleStage(); ok && sat.Density > 0 && b.OilDensity > 0 && qcRelDiff(sat.Density, b.OilDensity) > qcDensityTol {
+		q.add(Warning, qcCCEFile, sat.Line, "pb-density-mismatch", "check both densities; the oil at the bubble point has one density",
+			"CCE density at the saturation point, %.4g lbm/ft³, differs from the DL first stage's %.4g (dl.csv line %d) by %.1f %%",
+			sat.Density, b.OilDensity, b.Line, 100*qcRelDiff(sat.Density, b.OilDensity))
+	}
+	var pts []CCEPoint
+	var prod []float64
+	for _, c := range q.r.CCE {
+		if c.Density > 0 && c.RelVolume > 0 && c.Pressure >= sat.Pressure {
+			pts = append(pts, c)
+			prod = append(prod, c.Density*c.RelVolume)
+		}
+	}
+	if len(pts) < 2 {
+		return
+	}
+	anchor := sat.Density
+	if len(prod) >= 3 || anchor <= 0 {
+		sorted := append([]float64(nil), prod...)
+		sort.Float64s(sorted)
+		n := len(sorted)
+		anchor = (sorted[(n-1)/2] + sorted[n/2]) / 2
+	}
+	for i, c := range pts {
+		if qcRelDiff(prod[i], anchor) > qcDensityTol {
+			q.add(Warning, qcCCEFile, c.Line, "cce-density-mismatch", "check the density and the relative volume of this point",
+				"density %.4g lbm/ft³ at %.6g psia times V/Vsat %.6g is %.4g; the other points give %.4g (%.1f %% apart): the mass is not constant",
+				c.Density, c.Pressure, c.RelVolume, prod[i], anchor, 100*qcRelDiff(prod[i], anchor))
+		}
 	}
 }
 
