@@ -87,6 +87,7 @@ const (
 //	pb-density-mismatch (warning)
 //	cce-no-sat-point, cce-y-too-few, cce-y-not-straight (note)
 //	adjust-no-separator (warning), adjust-rs-clamped (note)
+//	report-missing (error: a nil report)
 //
 // The separator stage GORs are not checked against a total: the report format has no
 // total-GOR column (Rsfb is the sum of the stages by definition).

@@ -3,6 +3,7 @@ package lab
 import (
 	"bytes"
 	"math"
+	"math/rand/v2"
 	"slices"
 	"strings"
 	"testing"
@@ -229,7 +230,7 @@ func TestCheckRanges(t *testing.T) {
 		{"API low", Fluid{API: 4, Temperature: 200, Pb: 2000}, "range-api", "lower bound 5"},
 		{"API high", Fluid{API: 71, Temperature: 200, Pb: 2000}, "range-api", "upper bound 70"},
 		{"T low", Fluid{API: 35, Temperature: 50, Pb: 2000}, "range-temperature", "lower bound 60"},
-		{"T high (°C read as °F would not do this; K would)", Fluid{API: 35, Temperature: 366, Pb: 2000}, "", ""},
+		{"T just inside the upper bound", Fluid{API: 35, Temperature: 399, Pb: 2000}, "", ""},
 		{"T high", Fluid{API: 35, Temperature: 420, Pb: 2000}, "range-temperature", "upper bound 400"},
 		{"Pb high", Fluid{API: 35, Temperature: 200, Pb: 12000}, "range-pb", "upper bound 10000"},
 		{"Pb low", Fluid{API: 35, Temperature: 200, Pb: 10}, "range-pb", "lower bound 14.7"},
@@ -297,6 +298,31 @@ func TestCheckYNotStraight(t *testing.T) {
 	}
 }
 
+func TestCheckCCESaturationPoint(t *testing.T) {
+	// The CCE normalised at 2500 psia while its straight-Y saturation pressure is 2420
+	// (invented, 3.2 % apart): the Y-implied Psat disagrees with the CCE's own.
+	r := inventedReport()
+	r.CCE = syntheticCCE(invYA, invYB, 1.2e-5, 0, 2420, invPb, cceGrid(invPb), 5)
+	fs := Check(r)
+	if !hasFinding(fs, "cce-y-psat-mismatch", qcCCEFile, 8) {
+		t.Errorf("no cce-y-psat-mismatch at cce.csv:8:\n%s", dump(fs))
+	}
+	// No point with V/Vsat = 1: a note, and the Y-function runs on fluid.csv's Pb.
+	r = inventedReport()
+	r.CCE = slices.Delete(r.CCE, invSatIdx, invSatIdx+1)
+	fs = Check(r)
+	if !hasFinding(fs, "cce-no-sat-point", qcCCEFile, 0) || len(aboveNote(fs)) != 0 {
+		t.Errorf("CCE without its saturation point: want one cce-no-sat-point note and nothing above note:\n%s", dump(fs))
+	}
+	// Two points below Pb: too few for a Y-function.
+	r = inventedReport()
+	r.CCE = r.CCE[:invSatIdx+3]
+	fs = Check(r)
+	if !hasFinding(fs, "cce-y-too-few", qcCCEFile, 0) || len(aboveNote(fs)) != 0 {
+		t.Errorf("CCE with two two-phase points: want a cce-y-too-few note and nothing above note:\n%s", dump(fs))
+	}
+}
+
 func TestCheckNilAndEmpty(t *testing.T) {
 	if fs := Check(nil); len(fs) != 1 || fs[0].Severity != Error {
 		t.Errorf("Check(nil) = %+v", fs)
@@ -314,6 +340,48 @@ func TestCheckNilAndEmpty(t *testing.T) {
 	for _, f := range Check(r) {
 		if strings.Contains(f.Message, "NaN") && f.Code != "cce-not-monotonic" && f.Code != "dl-bo-rising" {
 			t.Errorf("NaN in %s: %s", f.Code, f.Message)
+		}
+	}
+}
+
+func TestCheckNeverPanics(t *testing.T) {
+	// Random damage to the invented report (deterministic seed): Check must return, never
+	// panic, and every finding must carry a code and a file or be about the whole report.
+	rng := rand.New(rand.NewPCG(1, 2))
+	junk := []float64{0, -1, math.NaN(), math.Inf(1), math.Inf(-1), 1e300, 1e-300, 14.696, 1}
+	pick := func() float64 { return junk[rng.IntN(len(junk))] }
+	for i := 0; i < 2000; i++ {
+		r := inventedReport()
+		for k := 0; k < 1+rng.IntN(4); k++ {
+			op := rng.IntN(9)
+			if len(r.DL) == 0 && op <= 2 {
+				op = 5
+			}
+			switch op {
+			case 0:
+				r.DL[rng.IntN(len(r.DL))].Pressure = pick()
+			case 1:
+				r.DL[rng.IntN(len(r.DL))].Rsd = pick()
+			case 2:
+				r.DL[rng.IntN(len(r.DL))].Bod = pick()
+			case 3:
+				r.CCE[rng.IntN(len(r.CCE))].RelVolume = pick()
+			case 4:
+				r.CCE[rng.IntN(len(r.CCE))].Pressure = pick()
+			case 5:
+				r.Fluid.Pb = pick()
+			case 6:
+				r.Fluid.API = pick()
+			case 7:
+				r.Separator[rng.IntN(2)].Bofb = pick()
+			case 8:
+				r.DL = r.DL[:rng.IntN(len(r.DL)+1)]
+			}
+		}
+		for _, f := range Check(r) {
+			if f.Code == "" || f.Message == "" {
+				t.Fatalf("finding without code or message: %+v", f)
+			}
 		}
 	}
 }

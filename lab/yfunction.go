@@ -308,6 +308,9 @@ func ImpliedPsat(reported float64, pts []CCEPoint) (PsatEstimate, error) {
 			use = append(use, c)
 		}
 	}
+	if len(use) == 0 {
+		return PsatEstimate{}, ErrYTooFewPoints
+	}
 	sort.SliceStable(use, func(i, j int) bool { return use[i].Pressure > use[j].Pressure })
 	lo := 0.0
 	for _, c := range use {
