@@ -34,7 +34,9 @@ type SeparatorBasis struct {
 
 // AdjustBo converts a DL relative oil volume to separator basis: Bo = Bod·Bofb/Bodb
 // (McCain, The Properties of Petroleum Fluids, 2nd ed., ch. 10; Moses, JPT 1986).
-func (s SeparatorBasis) AdjustBo(bod float64) float64 { return bod * s.Bofb / s.Bodb }
+// Evaluated as (Bod/Bodb)·Bofb so that Bod = Bodb gives Bofb exactly: (Bod·Bofb)/Bodb is
+// off by one unit in the last place for about one pair in nine.
+func (s SeparatorBasis) AdjustBo(bod float64) float64 { return bod / s.Bodb * s.Bofb }
 
 // AdjustRs converts a DL solution GOR to separator basis: Rs = Rsfb − (Rsdb − Rsd)·Bofb/Bodb
 // (same sources). The value may be negative; callers clamp it.
@@ -42,8 +44,9 @@ func (s SeparatorBasis) AdjustRs(rsd float64) float64 {
 	return s.Rsfb - (s.Rsdb-rsd)*s.Bofb/s.Bodb
 }
 
-// UnadjustBo is the inverse of AdjustBo: Bod = Bo·Bodb/Bofb.
-func (s SeparatorBasis) UnadjustBo(bo float64) float64 { return bo * s.Bodb / s.Bofb }
+// UnadjustBo is the inverse of AdjustBo: Bod = Bo·Bodb/Bofb, evaluated as (Bo/Bofb)·Bodb
+// so that Bo = Bofb gives Bodb exactly.
+func (s SeparatorBasis) UnadjustBo(bo float64) float64 { return bo / s.Bofb * s.Bodb }
 
 // UnadjustRs is the inverse of AdjustRs: Rsd = Rsdb − (Rsfb − Rs)·Bodb/Bofb.
 func (s SeparatorBasis) UnadjustRs(rs float64) float64 {
