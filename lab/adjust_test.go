@@ -97,7 +97,7 @@ func TestAdjustBelowPbAndClamp(t *testing.T) {
 	// Bo = Bod·Bofb/Bodb and Rs = Rsfb − (Rsdb − Rsd)·Bofb/Bodb below Pb, Rs never below
 	// zero (DESIGN §5; McCain, The Properties of Petroleum Fluids, 2nd ed., ch. 10). Invented
 	// DL; the expected values are worked by hand from those formulas.
-	r := inventedReport()
+	r := inventedQCReport()
 	s, err := r.SeparatorBasis()
 	if err != nil {
 		t.Fatal(err)
@@ -149,7 +149,7 @@ func TestAdjustBelowPbAndClamp(t *testing.T) {
 }
 
 func TestAdjustNoSeparator(t *testing.T) {
-	r := inventedReport()
+	r := inventedQCReport()
 	r.Separator = nil
 	if _, err := r.SeparatorBasis(); !errors.Is(err, ErrNoSeparator) {
 		t.Errorf("no separator: err %v, want ErrNoSeparator", err)

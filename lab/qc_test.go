@@ -29,7 +29,7 @@ const (
 // (residual oil 5.614583·62.37·γo lbm per bbl plus the gas still dissolved, 0.0764·γg lbm
 // per scf at 14.696 psia and 60 °F). Line numbers are those of the CSV files, header on
 // line 1.
-func inventedReport() *Report {
+func inventedQCReport() *Report {
 	type st struct{ p, rsd, bod, gg, z float64 }
 	stages := []st{
 		{2500, 650, 1.3800, 0, 0},
@@ -105,7 +105,7 @@ func aboveNote(fs []Finding) []Finding {
 }
 
 func TestCheckCleanReport(t *testing.T) {
-	r := inventedReport()
+	r := inventedQCReport()
 	if r.CCE[invSatIdx].Pressure != invPb || r.CCE[invSatIdx].RelVolume != 1 {
 		t.Fatalf("fixture: CCE point %d is %+v, want the saturation point", invSatIdx, r.CCE[invSatIdx])
 	}
@@ -182,10 +182,10 @@ func TestCheckMutations(t *testing.T) {
 		{"no separator test", func(r *Report) { r.Separator = nil; r.Fluid.SelectedTest = "" },
 			"adjust-no-separator", Warning, qcSepFile, 0},
 	}
-	base := Check(inventedReport())
+	base := Check(inventedQCReport())
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
-			r := inventedReport()
+			r := inventedQCReport()
 			tt.mutate(r)
 			fs := Check(r)
 			found := false
@@ -270,7 +270,7 @@ func TestCheckRanges(t *testing.T) {
 
 func TestCheckDLAbovePb(t *testing.T) {
 	// A DL that starts one stage above the bubble point: no gas liberated, Bod rising.
-	r := inventedReport()
+	r := inventedQCReport()
 	r.DL[0].Pressure, r.DL[0].Bod, r.DL[0].Bt = 2600, 1.3790, 1.3790
 	r.DL = slices.Insert(r.DL, 1, DLStage{Line: 0, Pressure: 2500, Rsd: 650, Bod: 1.3800, Bt: 1.3800})
 	fs := Check(r)
@@ -284,7 +284,7 @@ func TestCheckDLAbovePb(t *testing.T) {
 
 func TestCheckYNotStraight(t *testing.T) {
 	// A curved Y (invented: Y quadratic in p) gives a note, not a warning.
-	r := inventedReport()
+	r := inventedQCReport()
 	for i := range r.CCE {
 		p := r.CCE[i].Pressure
 		if p < invPb {
@@ -301,21 +301,21 @@ func TestCheckYNotStraight(t *testing.T) {
 func TestCheckCCESaturationPoint(t *testing.T) {
 	// The CCE normalised at 2500 psia while its straight-Y saturation pressure is 2420
 	// (invented, 3.2 % apart): the Y-implied Psat disagrees with the CCE's own.
-	r := inventedReport()
+	r := inventedQCReport()
 	r.CCE = syntheticCCE(invYA, invYB, 1.2e-5, 0, 2420, invPb, cceGrid(invPb), 5)
 	fs := Check(r)
 	if !hasFinding(fs, "cce-y-psat-mismatch", qcCCEFile, 8) {
 		t.Errorf("no cce-y-psat-mismatch at cce.csv:8:\n%s", dump(fs))
 	}
 	// No point with V/Vsat = 1: a note, and the Y-function runs on fluid.csv's Pb.
-	r = inventedReport()
+	r = inventedQCReport()
 	r.CCE = slices.Delete(r.CCE, invSatIdx, invSatIdx+1)
 	fs = Check(r)
 	if !hasFinding(fs, "cce-no-sat-point", qcCCEFile, 0) || len(aboveNote(fs)) != 0 {
 		t.Errorf("CCE without its saturation point: want one cce-no-sat-point note and nothing above note:\n%s", dump(fs))
 	}
 	// Two points below Pb: too few for a Y-function.
-	r = inventedReport()
+	r = inventedQCReport()
 	r.CCE = r.CCE[:invSatIdx+3]
 	fs = Check(r)
 	if !hasFinding(fs, "cce-y-too-few", qcCCEFile, 0) || len(aboveNote(fs)) != 0 {
@@ -332,7 +332,7 @@ func TestCheckNilAndEmpty(t *testing.T) {
 		t.Errorf("empty report: no dl-missing:\n%s", dump(fs))
 	}
 	// Junk values: no panic, every message free of NaN.
-	r := inventedReport()
+	r := inventedQCReport()
 	r.DL[3].Bod = math.NaN()
 	r.DL[4].Z = math.Inf(1)
 	r.CCE[12].RelVolume = math.NaN()
@@ -351,7 +351,7 @@ func TestCheckNeverPanics(t *testing.T) {
 	junk := []float64{0, -1, math.NaN(), math.Inf(1), math.Inf(-1), 1e300, 1e-300, 14.696, 1}
 	pick := func() float64 { return junk[rng.IntN(len(junk))] }
 	for i := 0; i < 2000; i++ {
-		r := inventedReport()
+		r := inventedQCReport()
 		for k := 0; k < 1+rng.IntN(4); k++ {
 			op := rng.IntN(9)
 			if len(r.DL) == 0 && op <= 2 {

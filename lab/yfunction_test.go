@@ -60,12 +60,6 @@ func cceGrid(psat float64) []float64 {
 	return out
 }
 
-func relErr(got, want float64) float64 {
-	if want == 0 {
-		return math.Abs(got)
-	}
-	return math.Abs(got-want) / math.Abs(want)
-}
 
 func TestFitYRecoversLine(t *testing.T) {
 	// Invented straight Y lines typical of black oils (Y of order 1.5–5 over the two-phase
