@@ -41,8 +41,8 @@ func pow10(x float64) float64 { return math.Exp(math.Ln10 * x) }
 //
 //	μod = (0.32 + 1.8e7/API^4.53)·(360/(T + 200))^a,  a = 10^(0.43 + 8.33/API)
 //
-// Beal's gas-free crudes: 10.1–52.5 °API, about 98–250 °F. Above about 160 °F the fit is
-// not monotonic in API for the heaviest oils (below about 15 °API).
+// Beal's gas-free crudes: 10.1–52.5 °API, about 98–250 °F. For oils below 14 °API above
+// about 220 °F the fit is not monotonic in API (a heavier oil comes out less viscous).
 func BealDeadViscosity(o Oil) (float64, error) {
 	if err := checkDeadOil(o); err != nil {
 		return 0, err
