@@ -20,7 +20,7 @@ const (
 	GasConstant = 10.73
 	// cubicFeetPerBarrel: 1 bbl = 42 US gal = 5.614583 ft³ (exact by definition).
 	cubicFeetPerBarrel = 5.614583
-	// waterDensityGramsPerCC converts lbm/ft³ to g/cm³ (1 g/cm³ = 62.428 lbm/ft³).
+	// lbmPerFt3PerGramPerCC converts lbm/ft³ to g/cm³ (1 g/cm³ = 62.428 lbm/ft³).
 	lbmPerFt3PerGramPerCC = 62.428
 	// Sane upper limits that catch unit slips (kPa for psia, K for °F) rather than physics.
 	maxPressure    = 1e5   // psia

@@ -79,7 +79,7 @@ const (
 // It is solved for ρr by Newton's method inside a bracket [0, ρmax] that always holds a root
 // (a bisection step replaces any Newton step that leaves it), to a relative change of 1e-12.
 // Near the critical point (Tpr < 1.05) the equation can have several roots; the one found is
-// the lowest-density (vapour) root reached from Papay's estimate, and values there are rough.
+// the root reached from the seed (usually the vapour root), and values there are rough.
 func DranchukAbouKassem(tpr, ppr float64) (float64, error) {
 	if err := checkReduced(tpr, ppr); err != nil {
 		return 0, err
