@@ -15,8 +15,8 @@ const (
 	// tolMethaneCritical: a gravity-only fit is not expected to hit a pure component's
 	// critical point; 3 % separates "right physics" from a wrong coefficient.
 	tolMethaneCritical = 0.03
-	// tolFromMemory is for a textbook value recalled but not re-checked against the book.
-	tolFromMemory = 5e-3
+	// tolGasFromMemory is for a textbook value recalled but not re-checked against the book.
+	tolGasFromMemory = 5e-3
 )
 
 func TestSuttonCritical(t *testing.T) {
@@ -91,10 +91,10 @@ func TestWichertAziz(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if e := relErr(tc, 374.6); e > tolFromMemory {
+	if e := relErr(tc, 374.6); e > tolGasFromMemory {
 		t.Errorf("T'pc = %.2f, want ≈ 374.6 (from memory; rel. err %.3g)", tc, e)
 	}
-	if e := relErr(p, 630.4); e > tolFromMemory {
+	if e := relErr(p, 630.4); e > tolGasFromMemory {
 		t.Errorf("p'pc = %.2f, want ≈ 630.4 (from memory; rel. err %.3g)", p, e)
 	}
 

@@ -46,13 +46,6 @@ func checkOilPositiveT(o Oil) error {
 	return nil
 }
 
-func checkPressure(name string, p float64) error {
-	if !(p > 0) || math.IsInf(p, 0) {
-		return inputError(name, p, "a finite pressure > 0 psia")
-	}
-	return nil
-}
-
 func checkGOR(name string, rs float64) error {
 	if !(rs >= 0) || math.IsInf(rs, 0) {
 		return inputError(name, rs, "a finite value ≥ 0 scf/STB")

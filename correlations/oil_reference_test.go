@@ -1,7 +1,6 @@
 package correlations
 
 import (
-	"math"
 	"testing"
 )
 
@@ -15,8 +14,6 @@ const (
 	tolCoBand        = 0.35  // compressibility correlations against a measured co
 	tolDensityMemory = 0.025 // material-balance density against the tabulated ρob (from memory)
 )
-
-func relErr(got, want float64) float64 { return math.Abs(got/want - 1) }
 
 // TestWorkedExamples checks single published calculations.
 func TestWorkedExamples(t *testing.T) {

@@ -31,8 +31,6 @@ func positive(id string, v float64) (float64, error) {
 	return v, nil
 }
 
-func pow10(x float64) float64 { return math.Exp(math.Ln10 * x) }
-
 // BealDeadViscosity returns the dead-oil viscosity in cP at o.Temperature (°F) from the
 // stock-tank gravity o.API, after Beal, C. (1946), "The Viscosity of Air, Water, Natural Gas,
 // Crude Oil and Its Associated Gases at Oil Field Temperatures and Pressures", Trans. AIME

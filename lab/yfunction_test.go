@@ -60,7 +60,6 @@ func cceGrid(psat float64) []float64 {
 	return out
 }
 
-
 func TestFitYRecoversLine(t *testing.T) {
 	// Invented straight Y lines typical of black oils (Y of order 1.5–5 over the two-phase
 	// range, rising with pressure); the fit must return them.

@@ -1,0 +1,310 @@
+package main
+
+import (
+	"encoding/json"
+	"flag"
+	"fmt"
+	"io"
+	"text/tabwriter"
+
+	"labmatch/correlations"
+	"labmatch/fit"
+	"labmatch/lab"
+)
+
+// quantityFlag is a flag value with an optional unit suffix ("2000psia", "93degC"); a plain
+// number is in field units.
+type quantityFlag struct {
+	q   lab.Quantity
+	v   float64
+	set bool
+}
+
+func (f *quantityFlag) String() string {
+	if f == nil || !f.set {
+		return ""
+	}
+	return fmt.Sprint(f.v)
+}
+
+func (f *quantityFlag) Set(s string) error {
+	v, err := lab.ParseValue(f.q, s)
+	if err != nil {
+		return err
+	}
+	f.v, f.set = v, true
+	return nil
+}
+
+func quantity(fs *flag.FlagSet, name string, q lab.Quantity, def float64, usage string) *quantityFlag {
+	f := &quantityFlag{q: q, v: def}
+	fs.Var(f, name, usage)
+	return f
+}
+
+func runCalc(args []string, stdout, stderr io.Writer) int {
+	if len(args) > 0 && (args[0] == "oil" || args[0] == "gas") {
+		if args[0] == "oil" {
+			return runCalcOil(args[1:], stdout, stderr)
+		}
+		return runCalcGas(args[1:], stdout, stderr)
+	}
+	fs := newFlagSet("calc", "labmatch calc oil|gas [flags]",
+		"Evaluate the published correlations once. \"labmatch calc oil --help\" and\n\"labmatch calc gas --help\" list the flags.")
+	if _, code := parseFlags(fs, args, stdout, stderr); code >= 0 {
+		return code
+	}
+	return usageError(fs, stderr, "want \"oil\" or \"gas\"")
+}
+
+type oilCalcOut struct {
+	PressurePsia     float64  `json:"pressure_psia"`
+	PbPsia           float64  `json:"pb_psia"`
+	RsScfSTB         float64  `json:"rs_scf_stb"`
+	BoRbSTB          float64  `json:"bo_rb_stb"`
+	CoPerPsi         float64  `json:"co_per_psi"`
+	OilDensity       float64  `json:"oil_density_lbm_ft3"`
+	DeadOilViscosity float64  `json:"dead_oil_viscosity_cp"`
+	OilViscosity     float64  `json:"oil_viscosity_cp"`
+	Families         any      `json:"families"`
+	Warnings         []string `json:"warnings"`
+}
+
+func runCalcOil(args []string, stdout, stderr io.Writer) int {
+	fs := newFlagSet("calc oil", "labmatch calc oil --api A --gas-gravity G --temperature T --rsb R --pressure P [family flags] [--json]",
+		"Oil properties at one pressure from the published correlations (no tuning).\nValues take units: 2000psia, 150bar, 93degC, 107sm3/sm3; plain numbers are field units.")
+	api := fs.Float64("api", 0, "stock-tank oil gravity, `degAPI`")
+	gg := fs.Float64("gas-gravity", 0, "separator gas `gravity` (air = 1)")
+	temp := quantity(fs, "temperature", lab.Temperature, 0, "reservoir `temperature` (default unit degF)")
+	rsb := quantity(fs, "rsb", lab.GOR, 0, "solution GOR at the bubble point (default unit scf/STB)")
+	press := quantity(fs, "pressure", lab.Pressure, 0, "`pressure` to evaluate at (default unit psia)")
+	sepP := quantity(fs, "sep-pressure", lab.Pressure, 114.7, "first-stage separator `pressure` (Vasquez–Beggs gas-gravity normalisation)")
+	sepT := quantity(fs, "sep-temperature", lab.Temperature, 60, "first-stage separator `temperature`")
+	fams := familyFlags(fs, fit.Pb, fit.Bo, fit.Co, fit.MuDead, fit.MuSat, fit.MuUnder)
+	asJSON := fs.Bool("json", false, "print JSON")
+	pos, code := parseFlags(fs, args, stdout, stderr)
+	if code >= 0 {
+		return code
+	}
+	if len(pos) > 0 {
+		return usageError(fs, stderr, "unexpected argument %q", pos[0])
+	}
+	for name, ok := range map[string]bool{"--api": *api > 0, "--gas-gravity": *gg > 0, "--temperature": temp.set, "--rsb": rsb.set, "--pressure": press.set} {
+		if !ok {
+			return usageError(fs, stderr, "%s is required", name)
+		}
+	}
+	ds := &fit.Dataset{Oil: correlations.Oil{API: *api, GasGravity: *gg, Temperature: temp.v, SepPressure: sepP.v, SepTemperature: sepT.v},
+		Rsb: rsb.v, StdPressure: 14.696, StdTemp: 60}
+	choice, err := fams.choice()
+	if err != nil {
+		return usageError(fs, stderr, "%v", err)
+	}
+	m, err := fit.PublishedModel(ds, choice, fit.Options{})
+	if err != nil {
+		fmt.Fprintln(stderr, "labmatch:", err)
+		return exitData
+	}
+	st, err := m.At(press.v)
+	if err != nil {
+		fmt.Fprintln(stderr, "labmatch:", err)
+		return exitData
+	}
+	out := oilCalcOut{PressurePsia: press.v, PbPsia: m.Pb, RsScfSTB: st.Rs, BoRbSTB: st.Bo, CoPerPsi: st.Co,
+		OilDensity: st.OilDensity, DeadOilViscosity: m.MuDead, OilViscosity: st.OilViscosity,
+		Families: m.Families, Warnings: m.RangeWarnings()}
+	if out.Warnings == nil {
+		out.Warnings = []string{}
+	}
+	if *asJSON {
+		return writeJSON(stdout, stderr, out)
+	}
+	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', 0)
+	state := "saturated"
+	if press.v > m.Pb {
+		state = "undersaturated"
+	}
+	fmt.Fprintf(tw, "oil at %.1f psia, %.1f degF (%s)\n", press.v, temp.v, state)
+	rows := []struct {
+		name, fam string
+		v         float64
+		unit      string
+	}{
+		{"bubble point Pb", m.Families[fit.Pb], m.Pb, "psia"},
+		{"solution GOR Rs", m.Families[fit.Pb], st.Rs, "scf/STB"},
+		{"oil FVF Bo", m.Families[fit.Bo], st.Bo, "rb/STB"},
+		{"compressibility co", coFamily(m, press.v), st.Co, "1/psi"},
+		{"oil density", "material balance", st.OilDensity, "lbm/ft3"},
+		{"dead-oil viscosity", m.Families[fit.MuDead], m.MuDead, "cP"},
+		{"oil viscosity", viscFamily(m, press.v), st.OilViscosity, "cP"},
+	}
+	for _, r := range rows {
+		fmt.Fprintf(tw, "  %s\t%.5g\t%s\t(%s)\n", r.name, r.v, r.unit, r.fam)
+	}
+	tw.Flush()
+	printWarnings(stdout, out.Warnings)
+	return exitOK
+}
+
+func coFamily(m *fit.Model, p float64) string {
+	if p > m.Pb {
+		return m.Families[fit.Co]
+	}
+	return "mccain-rollins-villena"
+}
+
+func viscFamily(m *fit.Model, p float64) string {
+	if p > m.Pb {
+		return m.Families[fit.MuUnder]
+	}
+	return m.Families[fit.MuSat]
+}
+
+type gasCalcOut struct {
+	PressurePsia float64  `json:"pressure_psia"`
+	TemperatureF float64  `json:"temperature_degf"`
+	Ppc          float64  `json:"ppc_psia"`
+	Tpc          float64  `json:"tpc_degr"`
+	Ppr          float64  `json:"ppr"`
+	Tpr          float64  `json:"tpr"`
+	Z            float64  `json:"z"`
+	Bg           float64  `json:"bg_rcf_scf"`
+	BgRbMscf     float64  `json:"bg_rb_mscf"`
+	Expansion    float64  `json:"expansion_scf_rcf"`
+	Density      float64  `json:"gas_density_lbm_ft3"`
+	Viscosity    float64  `json:"gas_viscosity_cp"`
+	PpcFamily    string   `json:"ppc_family"`
+	ZFamily      string   `json:"z_family"`
+	Warnings     []string `json:"warnings"`
+}
+
+func runCalcGas(args []string, stdout, stderr io.Writer) int {
+	fs := newFlagSet("calc gas", "labmatch calc gas --gas-gravity G --temperature T --pressure P [--h2s X --co2 X --n2 X] [--ppc ID] [--z ID] [--json]",
+		"Natural-gas properties at one pressure and temperature from the gas gravity.\nValues take units: 2000psia, 150bar, 93degC; plain numbers are field units.")
+	gg := fs.Float64("gas-gravity", 0, "gas `gravity` (air = 1)")
+	temp := quantity(fs, "temperature", lab.Temperature, 0, "`temperature` (default unit degF)")
+	press := quantity(fs, "pressure", lab.Pressure, 0, "`pressure` (default unit psia)")
+	h2s := fs.Float64("h2s", 0, "H2S in the gas, mole `percent`")
+	co2 := fs.Float64("co2", 0, "CO2 in the gas, mole `percent`")
+	n2 := fs.Float64("n2", 0, "N2 in the gas, mole `percent` (no correction is made; a warning is given above 5 %)")
+	ppcID := fs.String("ppc", "sutton", "pseudo-critical `family`: "+ids(correlations.PseudoCritical))
+	zID := fs.String("z", "dak", "Z-factor `family`: "+ids(correlations.GasZ))
+	asJSON := fs.Bool("json", false, "print JSON")
+	pos, code := parseFlags(fs, args, stdout, stderr)
+	if code >= 0 {
+		return code
+	}
+	if len(pos) > 0 {
+		return usageError(fs, stderr, "unexpected argument %q", pos[0])
+	}
+	if !(*gg > 0) || !temp.set || !press.set {
+		return usageError(fs, stderr, "--gas-gravity, --temperature and --pressure are required")
+	}
+	res, err := correlations.EvaluateGas(correlations.GasInput{
+		GasGravity: *gg, Temperature: temp.v, Pressure: press.v,
+		H2S: *h2s / 100, CO2: *co2 / 100, N2: *n2 / 100, PseudoCritical: *ppcID, Z: *zID,
+	})
+	if err != nil {
+		fmt.Fprintln(stderr, "labmatch:", err)
+		return exitData
+	}
+	out := gasCalcOut{PressurePsia: press.v, TemperatureF: temp.v, Ppc: res.Ppc, Tpc: res.Tpc, Ppr: res.Ppr, Tpr: res.Tpr,
+		Z: res.Z, Bg: res.Bg, BgRbMscf: res.Bg * 1000 / 5.614583, Expansion: 1 / res.Bg, Density: res.Density,
+		Viscosity: res.Viscosity, PpcFamily: *ppcID, ZFamily: *zID, Warnings: res.Warnings}
+	if out.Warnings == nil {
+		out.Warnings = []string{}
+	}
+	if *asJSON {
+		return writeJSON(stdout, stderr, out)
+	}
+	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', 0)
+	fmt.Fprintf(tw, "gas of gravity %.3f at %.1f psia, %.1f degF\n", *gg, press.v, temp.v)
+	for _, r := range []struct {
+		name string
+		v    float64
+		unit string
+	}{
+		{"pseudo-critical pressure", out.Ppc, "psia"}, {"pseudo-critical temperature", out.Tpc, "degR"},
+		{"pseudo-reduced pressure", out.Ppr, ""}, {"pseudo-reduced temperature", out.Tpr, ""},
+		{"Z-factor", out.Z, ""}, {"gas FVF Bg", out.Bg, "rcf/scf"}, {"gas FVF Bg", out.BgRbMscf, "rb/Mscf"},
+		{"expansion factor E", out.Expansion, "scf/rcf"}, {"gas density", out.Density, "lbm/ft3"},
+		{"gas viscosity", out.Viscosity, "cP"},
+	} {
+		fmt.Fprintf(tw, "  %s\t%.5g\t%s\n", r.name, r.v, r.unit)
+	}
+	tw.Flush()
+	printWarnings(stdout, out.Warnings)
+	return exitOK
+}
+
+func ids(p correlations.Property) string { return joinIDs(correlations.IDs(p)) }
+
+func printWarnings(w io.Writer, ws []string) {
+	for _, s := range ws {
+		fmt.Fprintln(w, "warning:", s)
+	}
+}
+
+func writeJSON(stdout, stderr io.Writer, v any) int {
+	enc := json.NewEncoder(stdout)
+	enc.SetIndent("", "  ")
+	if err := enc.Encode(v); err != nil {
+		fmt.Fprintln(stderr, "labmatch:", err)
+		return exitData
+	}
+	return exitOK
+}
+
+// familySet holds one --<property> flag per tuned property.
+type familySet map[fit.PropertyID]*string
+
+func familyFlags(fs *flag.FlagSet, props ...fit.PropertyID) familySet {
+	set := familySet{}
+	for _, p := range props {
+		name := flagName(p)
+		set[p] = fs.String(name, "", fmt.Sprintf("%s `family`: %s", p, joinIDs(fit.Families(p))))
+	}
+	return set
+}
+
+func flagName(p fit.PropertyID) string {
+	switch p {
+	case fit.MuDead:
+		return "mu-dead"
+	case fit.MuSat:
+		return "mu-sat"
+	case fit.MuUnder:
+		return "mu-under"
+	}
+	return string(p)
+}
+
+func joinIDs(ids []string) string {
+	s := ""
+	for i, id := range ids {
+		if i > 0 {
+			s += ", "
+		}
+		s += id
+	}
+	return s
+}
+
+// choice returns the families set by flag, refusing unknown ids.
+func (s familySet) choice() (fit.Choice, error) {
+	c := fit.Choice{}
+	for p, v := range s {
+		if *v == "" {
+			continue
+		}
+		known := false
+		for _, id := range fit.Families(p) {
+			known = known || id == *v
+		}
+		if !known {
+			return nil, fmt.Errorf("--%s %q: unknown family (known: %s)", flagName(p), *v, joinIDs(fit.Families(p)))
+		}
+		c[p] = *v
+	}
+	return c, nil
+}

@@ -1,0 +1,138 @@
+package export
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"os"
+	"sort"
+
+	"labmatch/fit"
+	"labmatch/lab"
+)
+
+// FormatVersion is the version of the tuning-file layout written by this package.
+const FormatVersion = 1
+
+// ErrFingerprint means a tuning file was made for other report files than the ones given.
+var ErrFingerprint = errors.New("export: the tuning file was made from a different report (fingerprint mismatch)")
+
+// TuningFile is the JSON record of a tuned fluid description.
+type TuningFile struct {
+	FormatVersion int                       `json:"format_version"`
+	Tool          string                    `json:"tool"`
+	Report        string                    `json:"report"`
+	Fingerprint   string                    `json:"report_sha256"`
+	Options       TuningOptions             `json:"options"`
+	Properties    map[string]PropertyTuning `json:"properties"`
+	Notes         []string                  `json:"notes,omitempty"`
+}
+
+// TuningOptions are the options the tuning ran with.
+type TuningOptions struct {
+	Mode           string  `json:"mode"`
+	Loss           string  `json:"loss"`
+	HuberDelta     float64 `json:"huber_delta"`
+	PseudoCritical string  `json:"pseudo_critical"`
+}
+
+// PropertyTuning is the tuned state of one property.
+type PropertyTuning struct {
+	Family     string                `json:"family"`
+	Parameters fit.Params            `json:"parameters"`
+	CI95       map[string][2]float64 `json:"ci95,omitempty"`
+	CIAssumed  bool                  `json:"ci95_assumed_uncertainty,omitempty"`
+	Published  fit.Stats             `json:"published"`
+	Tuned      fit.Stats             `json:"tuned"`
+	Excluded   []int                 `json:"excluded_points"`
+	Flags      []string              `json:"flags,omitempty"`
+}
+
+// NewTuningFile records tuning results for a report.
+func NewTuningFile(tool string, r *lab.Report, results map[fit.PropertyID]fit.Result, opts fit.Options, notes []string) TuningFile {
+	tf := TuningFile{FormatVersion: FormatVersion, Tool: tool, Report: r.Fluid.Sample, Fingerprint: r.Fingerprint,
+		Options:    TuningOptions{Mode: string(opts.Mode), Loss: string(opts.Loss), HuberDelta: opts.HuberDelta, PseudoCritical: opts.PseudoCritical},
+		Properties: map[string]PropertyTuning{}, Notes: notes}
+	for p, res := range results {
+		ex := res.Excluded
+		if ex == nil {
+			ex = []int{}
+		}
+		tf.Properties[string(p)] = PropertyTuning{Family: res.Family, Parameters: res.Params, CI95: res.CI95,
+			CIAssumed: res.CIAssumed, Published: res.Published, Tuned: res.Tuned, Excluded: ex, Flags: res.Flags}
+	}
+	return tf
+}
+
+// FitOptions returns the options recorded in the file, with the excluded points.
+func (tf TuningFile) FitOptions() fit.Options {
+	o := fit.Options{Mode: fit.Mode(tf.Options.Mode), Loss: fit.Loss(tf.Options.Loss), HuberDelta: tf.Options.HuberDelta,
+		PseudoCritical: tf.Options.PseudoCritical, Excluded: map[fit.PropertyID][]int{}}
+	for p, pt := range tf.Properties {
+		if len(pt.Excluded) > 0 {
+			o.Excluded[fit.PropertyID(p)] = append([]int(nil), pt.Excluded...)
+		}
+	}
+	return o
+}
+
+// Results returns the recorded families and parameters in the form fit.NewModel takes.
+func (tf TuningFile) Results() map[fit.PropertyID]fit.Result {
+	out := map[fit.PropertyID]fit.Result{}
+	for p, pt := range tf.Properties {
+		out[fit.PropertyID(p)] = fit.Result{Property: fit.PropertyID(p), Family: pt.Family, Params: pt.Parameters,
+			CI95: pt.CI95, Published: pt.Published, Tuned: pt.Tuned, Excluded: pt.Excluded, Flags: pt.Flags}
+	}
+	return out
+}
+
+// Matches checks the file against a report: the fingerprints must agree unless force is set.
+func (tf TuningFile) Matches(r *lab.Report, force bool) error {
+	if force || tf.Fingerprint == r.Fingerprint {
+		return nil
+	}
+	return fmt.Errorf("%w: file %.12s…, report %.12s… (use --force to apply it anyway)", ErrFingerprint, tf.Fingerprint, r.Fingerprint)
+}
+
+// SaveTuning writes the tuning file atomically; an existing file is kept unless force is set.
+func SaveTuning(path string, tf TuningFile, force bool) error {
+	data, err := json.MarshalIndent(tf, "", "  ")
+	if err != nil {
+		return fmt.Errorf("export: %w", err)
+	}
+	return lab.WriteFileAtomic(path, append(data, '\n'), force)
+}
+
+// LoadTuning reads a tuning file and checks its version and families.
+func LoadTuning(path string) (TuningFile, error) {
+	data, err := os.ReadFile(path)
+	if err != nil {
+		return TuningFile{}, fmt.Errorf("export: %w", err)
+	}
+	var tf TuningFile
+	if err := json.Unmarshal(data, &tf); err != nil {
+		return TuningFile{}, fmt.Errorf("export: %s: not a tuning file: %w", path, err)
+	}
+	if tf.FormatVersion != FormatVersion {
+		return TuningFile{}, fmt.Errorf("export: %s: format version %d, this labmatch reads %d", path, tf.FormatVersion, FormatVersion)
+	}
+	keys := make([]string, 0, len(tf.Properties))
+	for p := range tf.Properties {
+		keys = append(keys, p)
+	}
+	sort.Strings(keys)
+	for _, p := range keys {
+		pt := tf.Properties[p]
+		known := false
+		for _, id := range fit.Families(fit.PropertyID(p)) {
+			known = known || id == pt.Family
+		}
+		if !known {
+			return TuningFile{}, fmt.Errorf("export: %s: property %q: unknown family %q", path, p, pt.Family)
+		}
+		if !(pt.Parameters.Multiplier >= fit.MinMultiplier && pt.Parameters.Multiplier <= fit.MaxMultiplier) {
+			return TuningFile{}, fmt.Errorf("export: %s: property %q: multiplier %g outside [%g, %g]", path, p, pt.Parameters.Multiplier, fit.MinMultiplier, fit.MaxMultiplier)
+		}
+	}
+	return tf, nil
+}

@@ -1,0 +1,150 @@
+package fit
+
+import (
+	"fmt"
+	"math"
+
+	"labmatch/correlations"
+	"labmatch/lab"
+)
+
+// deadOilMaxPressure is the highest pressure (psia) at which a viscosity reading is taken as
+// the dead (residual) oil: the last DL stage is at atmospheric pressure (common practice).
+const deadOilMaxPressure = 30
+
+// Dataset is what the tuning engine needs from a report: the oil description, the
+// bubble-point state and the separator-basis points of every property.
+type Dataset struct {
+	Name        string
+	Oil         correlations.Oil
+	Pb          float64 // psia, from the report
+	Rsb         float64 // scf/STB, separator basis (Rsfb)
+	Bob         float64 // rb/STB, separator basis (Bofb)
+	MuDeadLab   float64 // cP, measured dead-oil viscosity at reservoir temperature; 0 if none
+	MuBLab      float64 // cP, measured oil viscosity at Pb; 0 if none
+	H2S, CO2    float64 // mole fractions in the gas
+	StdPressure float64 // psia
+	StdTemp     float64 // °F
+	Points      map[PropertyID][]Point
+	Notes       []string // what was skipped or assumed, for the user
+}
+
+// NewDataset builds a dataset from a report: DL data are adjusted to the selected separator
+// test first (lab.Report.SeparatorBasis).
+func NewDataset(r *lab.Report) (*Dataset, error) {
+	basis, err := r.SeparatorBasis()
+	if err != nil {
+		return nil, fmt.Errorf("fit: %w", err)
+	}
+	t, _ := r.SelectedSeparator()
+	gg := r.GasGravity()
+	if gg <= 0 {
+		return nil, fmt.Errorf("fit: no separator gas gravity: give it in fluid.csv or separator.csv")
+	}
+	ds := &Dataset{
+		Name: r.Fluid.Sample,
+		Oil: correlations.Oil{
+			API: r.Fluid.API, GasGravity: gg, Temperature: r.Fluid.Temperature,
+		},
+		Pb: r.Fluid.Pb, Rsb: basis.Rsfb, Bob: basis.Bofb,
+		H2S: r.Fluid.H2S / 100, CO2: r.Fluid.CO2 / 100,
+		StdPressure: r.Fluid.StdPressure, StdTemp: r.Fluid.StdTemperature,
+		Points: map[PropertyID][]Point{},
+	}
+	if ds.StdPressure <= 0 {
+		ds.StdPressure = 14.696
+	}
+	if ds.StdTemp == 0 {
+		ds.StdTemp = 60
+	}
+	if len(t.Stages) > 0 {
+		ds.Oil.SepPressure = t.Stages[0].Pressure
+		ds.Oil.SepTemperature = t.Stages[0].Temperature
+	}
+
+	// pb: the report's Pb at Rsb, then the adjusted Rs below Pb.
+	ds.add(Pb, Point{Quantity: "Pb", Unit: "psia", Pressure: ds.Pb, Lab: ds.Pb, Rs: ds.Rsb, Source: "fluid.csv", Line: r.Fluid.Line["saturation pressure"]})
+	zeroRs := 0
+	for _, p := range basis.Below {
+		if p.Pressure >= ds.Pb*(1-1e-9) {
+			continue
+		}
+		if p.Rs <= 0 {
+			zeroRs++
+			continue
+		}
+		ds.add(Pb, Point{Quantity: "Rs", Unit: "scf/STB", Pressure: p.Pressure, Lab: p.Rs, Rs: p.Rs, Source: p.Source, Line: p.Line})
+	}
+	if zeroRs > 0 {
+		ds.Notes = append(ds.Notes, fmt.Sprintf("pb: %d stage(s) with Rs = 0 left out (a relative error needs a value above zero)", zeroRs))
+	}
+	// bo: adjusted Bo at and below Pb with the lab Rs.
+	for _, p := range basis.Below {
+		ds.add(Bo, Point{Quantity: "Bo", Unit: "rb/STB", Pressure: p.Pressure, Lab: p.Bo, Rs: p.Rs, Source: p.Source, Line: p.Line})
+	}
+	// co: average compressibility from Pb to p from the CCE relative volumes.
+	for _, p := range basis.Above {
+		rv := p.Bo / ds.Bob
+		if rv >= 1 || p.Pressure <= ds.Pb {
+			continue
+		}
+		co := -math.Log(rv) / (p.Pressure - ds.Pb)
+		ds.add(Co, Point{Quantity: "co", Unit: "1/psi", Pressure: p.Pressure, Lab: co, Rs: ds.Rsb, Source: p.Source, Line: p.Line})
+	}
+	// viscosities.
+	for _, v := range r.Viscosity {
+		if v.Oil <= 0 {
+			continue
+		}
+		pt := Point{Unit: "cP", Pressure: v.Pressure, Lab: v.Oil, Source: "viscosity.csv", Line: v.Line}
+		switch {
+		case v.Pressure <= deadOilMaxPressure:
+			pt.Quantity = "mu_dead"
+			ds.MuDeadLab = v.Oil
+			ds.add(MuDead, pt)
+		case v.Pressure <= ds.Pb*(1+1e-6):
+			pt.Quantity = "mu"
+			pt.Rs = basis.RsAt(v.Pressure)
+			if math.Abs(v.Pressure-ds.Pb) <= 0.005*ds.Pb {
+				ds.MuBLab = v.Oil
+			}
+			ds.add(MuSat, pt)
+		default:
+			pt.Quantity = "mu"
+			pt.Rs = ds.Rsb
+			ds.add(MuUnder, pt)
+		}
+	}
+	if len(ds.Points[MuUnder]) > 0 && ds.MuBLab == 0 {
+		ds.Notes = append(ds.Notes, "mu_under: no viscosity measured at Pb; the tuned saturated viscosity at Pb is used")
+	}
+	// z: reported Z of the DL gas.
+	for _, st := range r.DL {
+		if st.Z <= 0 || st.Residual60 {
+			continue
+		}
+		g := st.GasGravity
+		if g <= 0 {
+			g = gg
+		}
+		ds.add(Z, Point{Quantity: "Z", Unit: "", Pressure: st.Pressure, Lab: st.Z, GasGravity: g, Source: "dl.csv", Line: st.Line})
+	}
+	for _, p := range Properties {
+		if len(ds.Points[p]) == 0 {
+			ds.Notes = append(ds.Notes, fmt.Sprintf("%s: no lab data, skipped", p))
+		}
+	}
+	return ds, nil
+}
+
+func (ds *Dataset) add(p PropertyID, pt Point) { ds.Points[p] = append(ds.Points[p], pt) }
+
+// rangeInputs gives the values that catalog ranges are checked against.
+func (ds *Dataset) rangeInputs() map[string]float64 { return rangeInputs(ds.Oil, ds.Rsb, ds.Pb) }
+
+func rangeInputs(o correlations.Oil, rsb, pb float64) map[string]float64 {
+	return map[string]float64{
+		"API": o.API, "gas gravity": o.GasGravity, "temperature": o.Temperature,
+		"Rsb": rsb, "Pb": pb, "Rs": rsb, "p": pb,
+	}
+}

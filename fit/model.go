@@ -1,0 +1,232 @@
+package fit
+
+import (
+	"fmt"
+	"math"
+
+	"labmatch/correlations"
+)
+
+// DefaultFamilies are used for a property that the report has no data for, so that the
+// model can still evaluate it (published, untuned; Model.Untuned lists them).
+var DefaultFamilies = Choice{
+	Pb: "standing", Bo: "standing", Co: "vasquez-beggs", MuDead: "beggs-robinson",
+	MuSat: "beggs-robinson", MuUnder: "vasquez-beggs", Z: "dak",
+}
+
+// coBelowFamily gives the oil compressibility below Pb (published, untuned).
+const coBelowFamily = "mccain-rollins-villena"
+
+// Model is a tuned fluid description: the chosen family and parameters of every property. It
+// evaluates the black-oil properties at any pressure at reservoir temperature.
+type Model struct {
+	Oil         correlations.Oil
+	Rsb         float64 // scf/STB
+	Pb          float64 // tuned bubble point, psia: Pb_tuned(Rsb)
+	Bob         float64 // tuned Bo at Pb, rb/STB
+	MuDead      float64 // tuned dead-oil viscosity, cP
+	MuB         float64 // tuned oil viscosity at Pb, cP
+	H2S, CO2    float64 // mole fractions in the gas
+	StdPressure float64 // psia
+	StdTemp     float64 // °F
+	Families    Choice
+	Params      map[PropertyID]Params
+	Untuned     []PropertyID // properties evaluated with a published default family
+
+	sg    correlations.SolutionGasFamily
+	bo    correlations.OilFVFFamily
+	co    correlations.CompressibilityFamily
+	coLow *correlations.CompressibilityFamily
+	sat   correlations.SatViscosityFamily
+	under correlations.UnderViscosityFamily
+	z     zModel
+}
+
+// State is every black-oil property at one pressure.
+type State struct {
+	Pressure     float64 `json:"pressure_psia"`
+	Rs           float64 `json:"rs_scf_stb"`
+	Bo           float64 `json:"bo_rb_stb"`
+	Co           float64 `json:"co_per_psi"`
+	OilDensity   float64 `json:"oil_density_lbm_ft3"`
+	OilViscosity float64 `json:"oil_viscosity_cp"`
+	Z            float64 `json:"z"`
+	Bg           float64 `json:"bg_rcf_scf"`
+	GasViscosity float64 `json:"gas_viscosity_cp"`
+}
+
+// NewModel builds the tuned model from tuning results (TuneAll). Properties absent from
+// results use DefaultFamilies with published parameters.
+func NewModel(ds *Dataset, results map[PropertyID]Result, opts Options) (*Model, error) {
+	m := &Model{Oil: ds.Oil, Rsb: ds.Rsb, H2S: ds.H2S, CO2: ds.CO2, StdPressure: ds.StdPressure,
+		StdTemp: ds.StdTemp, Families: Choice{}, Params: map[PropertyID]Params{}}
+	for _, p := range Properties {
+		if r, ok := results[p]; ok {
+			m.Families[p], m.Params[p] = r.Family, r.Params
+		} else {
+			m.Families[p], m.Params[p] = DefaultFamilies[p], Published
+			m.Untuned = append(m.Untuned, p)
+		}
+	}
+	var err error
+	if m.sg, err = correlations.SolutionGasByID(m.Families[Pb]); err != nil {
+		return nil, err
+	}
+	if m.bo, err = correlations.OilFVFByID(m.Families[Bo]); err != nil {
+		return nil, err
+	}
+	if m.co, err = correlations.CompressibilityByID(m.Families[Co]); err != nil {
+		return nil, err
+	}
+	if f, err := correlations.CompressibilityByID(coBelowFamily); err == nil {
+		m.coLow = &f
+	}
+	dead, err := correlations.DeadViscosityByID(m.Families[MuDead])
+	if err != nil {
+		return nil, err
+	}
+	if m.sat, err = correlations.SatViscosityByID(m.Families[MuSat]); err != nil {
+		return nil, err
+	}
+	if m.under, err = correlations.UnderViscosityByID(m.Families[MuUnder]); err != nil {
+		return nil, err
+	}
+	zm, err := newModel(ds, Z, m.Families[Z], opts, 0, 0)
+	if err != nil {
+		return nil, err
+	}
+	m.z = zm.(zModel)
+
+	q := m.Params[Pb]
+	pb, err := m.sg.BubblePoint(m.Rsb, m.Oil)
+	if err != nil {
+		return nil, fmt.Errorf("fit: model: bubble point: %w", err)
+	}
+	m.Pb = q.Multiplier*pb + q.Shift
+	if m.Bob, err = m.boSat(m.Pb, m.Rsb); err != nil {
+		return nil, fmt.Errorf("fit: model: Bo at Pb: %w", err)
+	}
+	mud, err := dead.Viscosity(m.Oil)
+	if err != nil {
+		return nil, fmt.Errorf("fit: model: dead-oil viscosity: %w", err)
+	}
+	m.MuDead = m.Params[MuDead].Multiplier*mud + m.Params[MuDead].Shift
+	if m.MuB, err = m.muSat(m.Rsb); err != nil {
+		return nil, fmt.Errorf("fit: model: viscosity at Pb: %w", err)
+	}
+	return m, nil
+}
+
+// Rs returns the tuned solution GOR at p, scf/STB.
+func (m *Model) Rs(p float64) (float64, error) {
+	if p >= m.Pb {
+		return m.Rsb, nil
+	}
+	q := m.Params[Pb]
+	pp := (p - q.Shift) / q.Multiplier
+	if pp <= 0 {
+		return 0, nil
+	}
+	rs, err := m.sg.SolutionGOR(pp, m.Oil)
+	return math.Max(0, math.Min(rs, m.Rsb)), err
+}
+
+func (m *Model) boSat(p, rs float64) (float64, error) {
+	v, err := m.bo.FVF(p, rs, m.Oil)
+	q := m.Params[Bo]
+	return 1 + q.Multiplier*(v-1) + q.Shift, err
+}
+
+func (m *Model) muSat(rs float64) (float64, error) {
+	v, err := m.sat.Viscosity(m.MuDead, rs, m.Oil)
+	q := m.Params[MuSat]
+	return q.Multiplier*v + q.Shift, err
+}
+
+// At evaluates every property at pressure p (psia) and reservoir temperature.
+func (m *Model) At(p float64) (State, error) {
+	if !(p > 0) || math.IsInf(p, 0) {
+		return State{}, fmt.Errorf("fit: model: pressure %g psia, want > 0", p)
+	}
+	s := State{Pressure: p}
+	var err error
+	if s.Rs, err = m.Rs(p); err != nil {
+		return s, fmt.Errorf("fit: model: Rs at %g psia: %w", p, err)
+	}
+	qc := m.Params[Co]
+	if p <= m.Pb {
+		if s.Bo, err = m.boSat(p, s.Rs); err != nil {
+			return s, fmt.Errorf("fit: model: Bo at %g psia: %w", p, err)
+		}
+		if s.OilViscosity, err = m.muSat(s.Rs); err != nil {
+			return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
+		}
+		if m.coLow != nil {
+			if s.Co, err = m.coLow.Co(p, m.Pb, m.Rsb, m.Oil); err != nil {
+				s.Co = 0 // the below-Pb compressibility is informative only
+			}
+		}
+	} else {
+		rv, err := m.co.RelativeVolume(p, m.Pb, m.Rsb, m.Oil)
+		if err != nil || rv <= 0 {
+			return s, fmt.Errorf("fit: model: relative volume at %g psia: %v", p, err)
+		}
+		s.Bo = m.Bob * math.Exp(qc.Multiplier*math.Log(rv)-qc.Shift*coShiftUnit*(p-m.Pb))
+		co, err := m.co.Co(p, m.Pb, m.Rsb, m.Oil)
+		if err != nil {
+			return s, fmt.Errorf("fit: model: co at %g psia: %w", p, err)
+		}
+		s.Co = qc.Multiplier*co + qc.Shift*coShiftUnit
+		mu, err := m.under.Viscosity(p, m.Pb, m.MuB, m.Oil)
+		if err != nil {
+			return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
+		}
+		qu := m.Params[MuUnder]
+		s.OilViscosity = m.MuB + qu.Multiplier*(mu-m.MuB) + qu.Shift
+	}
+	if s.OilDensity, err = correlations.OilDensity(s.Rs, s.Bo, m.Oil); err != nil {
+		return s, fmt.Errorf("fit: model: oil density at %g psia: %w", p, err)
+	}
+	z, err := m.z.z(p, m.Oil.GasGravity)
+	if err != nil {
+		return s, fmt.Errorf("fit: model: Z at %g psia: %w", p, err)
+	}
+	qz := m.Params[Z]
+	s.Z = qz.Multiplier*z + qz.Shift
+	if s.Bg, err = correlations.GasFVFStd(s.Z, p, m.Oil.Temperature, m.StdPressure, m.StdTemp); err != nil {
+		return s, fmt.Errorf("fit: model: Bg at %g psia: %w", p, err)
+	}
+	if s.GasViscosity, err = correlations.LeeGonzalezEakin(m.Oil.Temperature, p, s.Z, m.Oil.GasGravity); err != nil {
+		return s, fmt.Errorf("fit: model: gas viscosity at %g psia: %w", p, err)
+	}
+	return s, nil
+}
+
+// PublishedModel builds a model from published correlations only: the chosen family of each
+// property (DefaultFamilies where choice has none) with multiplier 1. ds needs Oil and Rsb.
+func PublishedModel(ds *Dataset, choice Choice, opts Options) (*Model, error) {
+	res := map[PropertyID]Result{}
+	for _, p := range Properties {
+		fam := choice[p]
+		if fam == "" {
+			fam = DefaultFamilies[p]
+		}
+		res[p] = Result{Property: p, Family: fam, Params: Published}
+	}
+	return NewModel(ds, res, opts)
+}
+
+// RangeWarnings lists, for every family of the model, the inputs outside the range of the
+// family's original data.
+func (m *Model) RangeWarnings() []string {
+	in := rangeInputs(m.Oil, m.Rsb, m.Pb)
+	var ws []string
+	for _, p := range Properties {
+		if e, err := correlations.Lookup(catalogProperty(p), m.Families[p]); err == nil {
+			for _, w := range e.Check(in) {
+				ws = append(ws, fmt.Sprintf("%s (%s): %s", p, m.Families[p], w))
+			}
+		}
+	}
+	return ws
+}

@@ -1,0 +1,206 @@
+package fit
+
+import (
+	"fmt"
+	"math"
+
+	"labmatch/correlations"
+)
+
+// model predicts a property at its points for given parameters. predict must not allocate:
+// it runs for every objective evaluation.
+type model interface {
+	predict(q Params, pts []Point, out []float64) error
+}
+
+// newModel builds the model of one family of one property for a dataset. muDead and muB
+// carry the dead-oil viscosity and the viscosity at Pb that the live-oil families need.
+func newModel(ds *Dataset, p PropertyID, family string, opts Options, muDead, muB float64) (model, error) {
+	switch p {
+	case Pb:
+		f, err := correlations.SolutionGasByID(family)
+		return pbModel{f, ds.Oil}, err
+	case Bo:
+		f, err := correlations.OilFVFByID(family)
+		return boModel{f, ds.Oil}, err
+	case Co:
+		f, err := correlations.CompressibilityByID(family)
+		return coModel{f, ds.Oil, ds.Pb, ds.Rsb}, err
+	case MuDead:
+		f, err := correlations.DeadViscosityByID(family)
+		return muDeadModel{f, ds.Oil}, err
+	case MuSat:
+		f, err := correlations.SatViscosityByID(family)
+		return muSatModel{f, ds.Oil, muDead}, err
+	case MuUnder:
+		f, err := correlations.UnderViscosityByID(family)
+		return muUnderModel{f, ds.Oil, ds.Pb, muB}, err
+	case Z:
+		f, err := correlations.ZByID(family)
+		if err != nil {
+			return nil, err
+		}
+		pc, err := correlations.PseudoCriticalByID(opts.pseudoCritical())
+		return zModel{f, pc, ds.Oil.Temperature, ds.H2S, ds.CO2}, err
+	}
+	return nil, fmt.Errorf("fit: unknown property %q", p)
+}
+
+// pbModel: Pb_tuned(Rsb) = m·Pb(Rsb) + s and Rs_tuned(p) = Rs((p − s)/m), an exact inverse pair.
+type pbModel struct {
+	f   correlations.SolutionGasFamily
+	oil correlations.Oil
+}
+
+func (m pbModel) predict(q Params, pts []Point, out []float64) error {
+	for i, pt := range pts {
+		if pt.Quantity == "Pb" {
+			v, err := m.f.BubblePoint(pt.Rs, m.oil)
+			if err != nil {
+				return err
+			}
+			out[i] = q.Multiplier*v + q.Shift
+			continue
+		}
+		pp := (pt.Pressure - q.Shift) / q.Multiplier
+		if pp <= 0 {
+			out[i] = 0
+			continue
+		}
+		v, err := m.f.SolutionGOR(pp, m.oil)
+		if err != nil {
+			return err
+		}
+		out[i] = v
+	}
+	return nil
+}
+
+// boModel: Bo_tuned = 1 + m·(Bo − 1) + s.
+type boModel struct {
+	f   correlations.OilFVFFamily
+	oil correlations.Oil
+}
+
+func (m boModel) predict(q Params, pts []Point, out []float64) error {
+	for i, pt := range pts {
+		v, err := m.f.FVF(pt.Pressure, pt.Rs, m.oil)
+		if err != nil {
+			return err
+		}
+		out[i] = 1 + q.Multiplier*(v-1) + q.Shift
+	}
+	return nil
+}
+
+// coShiftUnit is the unit of the co shift parameter (1/psi): the shift is given in microsips.
+const coShiftUnit = 1e-6
+
+// coModel predicts the average compressibility from Pb to p, −ln(Bo(p)/Bob)/(p − Pb);
+// tuned: m·co_avg + s·1e-6 (equivalent to co_tuned(p) = m·co(p) + s·1e-6 pointwise).
+type coModel struct {
+	f       correlations.CompressibilityFamily
+	oil     correlations.Oil
+	pb, rsb float64
+}
+
+func (m coModel) predict(q Params, pts []Point, out []float64) error {
+	for i, pt := range pts {
+		rv, err := m.f.RelativeVolume(pt.Pressure, m.pb, m.rsb, m.oil)
+		if err != nil {
+			return err
+		}
+		if rv <= 0 {
+			return correlations.ErrNotFinite
+		}
+		out[i] = q.Multiplier*(-math.Log(rv)/(pt.Pressure-m.pb)) + q.Shift*coShiftUnit
+	}
+	return nil
+}
+
+// muDeadModel: μod_tuned = m·μod + s.
+type muDeadModel struct {
+	f   correlations.DeadViscosityFamily
+	oil correlations.Oil
+}
+
+func (m muDeadModel) predict(q Params, pts []Point, out []float64) error {
+	v, err := m.f.Viscosity(m.oil)
+	if err != nil {
+		return err
+	}
+	for i := range pts {
+		out[i] = q.Multiplier*v + q.Shift
+	}
+	return nil
+}
+
+// muSatModel: μ_tuned = m·μ(μod, Rs) + s, with μod the measured (or tuned) dead-oil viscosity.
+type muSatModel struct {
+	f      correlations.SatViscosityFamily
+	oil    correlations.Oil
+	muDead float64
+}
+
+func (m muSatModel) predict(q Params, pts []Point, out []float64) error {
+	for i, pt := range pts {
+		v, err := m.f.Viscosity(m.muDead, pt.Rs, m.oil)
+		if err != nil {
+			return err
+		}
+		out[i] = q.Multiplier*v + q.Shift
+	}
+	return nil
+}
+
+// muUnderModel: μ_tuned = μb + m·(μ(p) − μb) + s, so that a multiplier keeps μ continuous at Pb.
+type muUnderModel struct {
+	f      correlations.UnderViscosityFamily
+	oil    correlations.Oil
+	pb, mb float64
+}
+
+func (m muUnderModel) predict(q Params, pts []Point, out []float64) error {
+	for i, pt := range pts {
+		v, err := m.f.Viscosity(pt.Pressure, m.pb, m.mb, m.oil)
+		if err != nil {
+			return err
+		}
+		out[i] = m.mb + q.Multiplier*(v-m.mb) + q.Shift
+	}
+	return nil
+}
+
+// zModel: Z_tuned = m·Z(Tpr, Ppr) + s, pseudo-criticals from the gas gravity of each point
+// with the Wichert–Aziz correction when the gas is sour.
+type zModel struct {
+	f        correlations.ZFamily
+	pc       correlations.PseudoCriticalFamily
+	tF       float64
+	h2s, co2 float64
+}
+
+func (m zModel) predict(q Params, pts []Point, out []float64) error {
+	for i, pt := range pts {
+		v, err := m.z(pt.Pressure, pt.GasGravity)
+		if err != nil {
+			return err
+		}
+		out[i] = q.Multiplier*v + q.Shift
+	}
+	return nil
+}
+
+func (m zModel) z(p, gg float64) (float64, error) {
+	ppc, tpc, err := m.pc.Critical(gg)
+	if err != nil {
+		return 0, err
+	}
+	if m.h2s > 0 || m.co2 > 0 {
+		ppc, tpc, err = correlations.WichertAziz(ppc, tpc, m.h2s, m.co2)
+		if err != nil {
+			return 0, err
+		}
+	}
+	return m.f.Z((m.tF+459.67)/tpc, p/ppc)
+}

@@ -1,0 +1,136 @@
+package fit
+
+import "labmatch/correlations"
+
+// PropertyID names a tuned property. The ids appear in files, flags and JSON.
+type PropertyID string
+
+// The tuned properties, in the order they are tuned and shown.
+const (
+	Pb      PropertyID = "pb"       // solution-gas pair: Pb(Rsb) and Rs(p) below Pb
+	Bo      PropertyID = "bo"       // saturated oil FVF at and below Pb
+	Co      PropertyID = "co"       // undersaturated oil compressibility (CCE above Pb)
+	MuDead  PropertyID = "mu_dead"  // dead-oil viscosity at reservoir temperature
+	MuSat   PropertyID = "mu_sat"   // live-oil viscosity at and below Pb
+	MuUnder PropertyID = "mu_under" // oil viscosity above Pb
+	Z       PropertyID = "z"        // Z-factor of the DL gas
+)
+
+// Properties lists every tuned property in order.
+var Properties = []PropertyID{Pb, Bo, Co, MuDead, MuSat, MuUnder, Z}
+
+// catalogProperty maps a tuned property to the catalog property of its families.
+func catalogProperty(p PropertyID) correlations.Property {
+	switch p {
+	case Pb:
+		return correlations.SolutionGas
+	case Bo:
+		return correlations.OilFVF
+	case Co:
+		return correlations.Compressibility
+	case MuDead:
+		return correlations.DeadViscosity
+	case MuSat:
+		return correlations.SatViscosity
+	case MuUnder:
+		return correlations.UnderViscosity
+	case Z:
+		return correlations.GasZ
+	}
+	return ""
+}
+
+// Families returns the catalog ids of the families that can describe a property.
+func Families(p PropertyID) []string { return correlations.IDs(catalogProperty(p)) }
+
+// Loss selects how residuals are weighed in the objective.
+type Loss string
+
+// Losses.
+const (
+	Relative Loss = "relative" // squared relative errors (default)
+	Absolute Loss = "absolute" // squared absolute errors in the property's unit
+	Huber    Loss = "huber"    // Huber loss on relative errors: quadratic within HuberDelta, linear beyond
+)
+
+// Mode selects the tuning parameters.
+type Mode string
+
+// Modes.
+const (
+	Multiplier      Mode = "multiplier"       // one multiplier (default)
+	MultiplierShift Mode = "multiplier+shift" // a multiplier and an additive shift
+)
+
+// Options control tuning. The zero value means: one multiplier, relative errors, every point
+// weighted 1, Sutton pseudo-criticals for Z.
+type Options struct {
+	Mode       Mode    // "" = Multiplier
+	Loss       Loss    // "" = Relative
+	HuberDelta float64 // relative error where the Huber loss turns linear; 0 = 0.02
+	// Excluded lists, per property, the indexes (into Problem.Points) of points left out.
+	Excluded map[PropertyID][]int
+	// Weights gives, per property, a weight per point (same length as the points); nil = 1.
+	Weights map[PropertyID][]float64
+	// PseudoCritical is the pseudo-critical family for Z, Bg and gas viscosity; "" = "sutton".
+	PseudoCritical string
+}
+
+func (o Options) mode() Mode {
+	if o.Mode == "" {
+		return Multiplier
+	}
+	return o.Mode
+}
+
+func (o Options) loss() Loss {
+	if o.Loss == "" {
+		return Relative
+	}
+	return o.Loss
+}
+
+func (o Options) huberDelta() float64 {
+	if o.HuberDelta <= 0 {
+		return 0.02
+	}
+	return o.HuberDelta
+}
+
+func (o Options) pseudoCritical() string {
+	if o.PseudoCritical == "" {
+		return "sutton"
+	}
+	return o.PseudoCritical
+}
+
+// Params are the tuning parameters of one property. Multiplier 1 and Shift 0 reproduce the
+// published correlation.
+type Params struct {
+	Multiplier float64 `json:"multiplier"`
+	Shift      float64 `json:"shift"`
+}
+
+// Published are the parameters that reproduce the published correlation.
+var Published = Params{Multiplier: 1}
+
+// Stats are error statistics over the points used.
+type Stats struct {
+	Points int     `json:"points"`
+	AARE   float64 `json:"aare_pct"`    // average absolute relative error, %
+	Bias   float64 `json:"bias_pct"`    // average relative error (ARE), %
+	MaxARE float64 `json:"max_are_pct"` // largest absolute relative error, %
+	RMSE   float64 `json:"rmse"`        // root-mean-square error in the property's unit
+}
+
+// Point is one lab value that a property is fitted to, with the context the correlation needs.
+type Point struct {
+	Quantity   string  // "Pb", "Rs", "Bo", "co", "mu_dead", "mu", "Z"
+	Unit       string  // unit of Lab
+	Pressure   float64 // psia
+	Lab        float64 // measured (separator-basis) value
+	Rs         float64 // solution GOR at this point, scf/STB (Pb: Rsb; Bo, mu: lab Rs)
+	GasGravity float64 // gas gravity for Z points
+	Source     string  // file the value comes from
+	Line       int     // line in Source
+}

@@ -1,0 +1,186 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+func runCLI(t *testing.T, args ...string) (code int, stdout, stderr string) {
+	t.Helper()
+	var o, e bytes.Buffer
+	code = run(args, &o, &e)
+	return code, o.String(), e.String()
+}
+
+func TestUsageErrors(t *testing.T) {
+	for _, args := range [][]string{
+		{"no-such-command"},
+		{"check"},
+		{"check", "--no-such-flag", "x"},
+		{"calc"},
+		{"calc", "oil", "--api", "30"},
+		{"calc", "gas", "--gas-gravity", "0.7", "--temperature", "200", "--pressure", "12parsecs"},
+		{"tune", "demo:tr3-black", "--bo", "no-such-family"},
+		{"rank", "demo:tr3-black", "--mode", "sideways"},
+	} {
+		code, _, stderr := runCLI(t, args...)
+		if code != exitUsage {
+			t.Errorf("%v: exit %d, want %d (stderr %q)", args, code, exitUsage, stderr)
+		}
+		if !strings.Contains(stderr, "Usage") && !strings.Contains(stderr, "usage") {
+			t.Errorf("%v: stderr lacks the usage: %q", args, stderr)
+		}
+	}
+}
+
+func TestHelpEveryCommand(t *testing.T) {
+	for _, c := range commands() {
+		code, out, _ := runCLI(t, c.name, "--help")
+		if code != exitOK || !strings.Contains(out, "Usage: labmatch "+c.name) {
+			t.Errorf("%s --help: exit %d, output %q", c.name, code, out)
+		}
+	}
+	code, out, _ := runCLI(t, "--help")
+	if code != exitOK || !strings.Contains(out, "qualified engineers") {
+		t.Errorf("--help must show the cautions; exit %d", code)
+	}
+}
+
+// The acceptance path of the foundation issue: write the demo reports, check each, corrupt a
+// cell and see the file, line and column named.
+func TestSamplesOutCheckAndCorrupt(t *testing.T) {
+	dir := t.TempDir()
+	if code, _, e := runCLI(t, "samples", "--out", dir); code != exitOK {
+		t.Fatalf("samples --out: exit %d: %s", code, e)
+	}
+	ents, err := os.ReadDir(dir)
+	if err != nil || len(ents) != 3 {
+		t.Fatalf("want 3 report folders, got %d (%v)", len(ents), err)
+	}
+	for _, e := range ents {
+		if code, out, errs := runCLI(t, "check", filepath.Join(dir, e.Name())); code != exitOK {
+			t.Errorf("check %s: exit %d\n%s%s", e.Name(), code, out, errs)
+		}
+	}
+	// Writing again without --force must refuse and keep the files.
+	if code, _, _ := runCLI(t, "samples", "--out", dir); code != exitData {
+		t.Errorf("samples --out over existing files: exit %d, want %d", code, exitData)
+	}
+	// Corrupt one cell: the third data cell of dl.csv's second data row.
+	dl := filepath.Join(dir, "tr3-black", "dl.csv")
+	data, err := os.ReadFile(dl)
+	if err != nil {
+		t.Fatal(err)
+	}
+	lines := strings.Split(string(data), "\n")
+	row := -1
+	seen := 0
+	for i, l := range lines {
+		if l == "" || strings.HasPrefix(l, "#") {
+			continue
+		}
+		seen++
+		if seen == 3 { // header, first row, second row
+			row = i
+			break
+		}
+	}
+	cells := strings.Split(lines[row], ",")
+	cells[2] = "1.2x4"
+	lines[row] = strings.Join(cells, ",")
+	if err := os.WriteFile(dl, []byte(strings.Join(lines, "\n")), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, stderr := runCLI(t, "check", filepath.Join(dir, "tr3-black"))
+	if code != exitData {
+		t.Fatalf("corrupted report: exit %d, want %d", code, exitData)
+	}
+	want := "dl.csv:" + strconv.Itoa(row+1) + ":3"
+	if !strings.Contains(stderr, want) || !strings.Contains(stderr, "1.2x4") {
+		t.Errorf("error %q does not name %s and the bad text", stderr, want)
+	}
+}
+
+func TestCalcJSONKeys(t *testing.T) {
+	code, out, e := runCLI(t, "calc", "oil", "--api", "35", "--gas-gravity", "0.75", "--temperature", "90degC",
+		"--rsb", "60sm3/sm3", "--pressure", "3000psia", "--json")
+	if code != exitOK {
+		t.Fatalf("calc oil: exit %d: %s", code, e)
+	}
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"pb_psia", "rs_scf_stb", "bo_rb_stb", "co_per_psi", "oil_density_lbm_ft3", "dead_oil_viscosity_cp", "oil_viscosity_cp", "warnings"} {
+		if _, ok := m[k]; !ok {
+			t.Errorf("calc oil --json lacks %q", k)
+		}
+	}
+	code, out, e = runCLI(t, "calc", "gas", "--gas-gravity", "0.7", "--temperature", "200", "--pressure", "5000", "--json")
+	if code != exitOK {
+		t.Fatalf("calc gas: exit %d: %s", code, e)
+	}
+	m = nil
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"ppc_psia", "tpc_degr", "z", "bg_rcf_scf", "expansion_scf_rcf", "gas_density_lbm_ft3", "gas_viscosity_cp", "warnings"} {
+		if _, ok := m[k]; !ok {
+			t.Errorf("calc gas --json lacks %q", k)
+		}
+	}
+	// A 0.7 gas at 5,000 psia and 200 °F expands about 270-fold (common practice; AGA8
+	// GERG-2008 gives 269.45, ../shared/reference/aga8/expansion_factor.csv).
+	if e := m["expansion_scf_rcf"].(float64); e < 265 || e > 275 {
+		t.Errorf("expansion %g, want about 270", e)
+	}
+}
+
+func TestRankAndTuneJSON(t *testing.T) {
+	code, out, e := runCLI(t, "rank", "demo:tr3-black", "--json")
+	if code != exitOK {
+		t.Fatalf("rank: exit %d: %s", code, e)
+	}
+	var rk struct {
+		Properties map[string][]map[string]any `json:"properties"`
+	}
+	if err := json.Unmarshal([]byte(out), &rk); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"family", "aare_pct_published", "aare_pct_tuned", "multiplier", "in_range", "points"} {
+		if _, ok := rk.Properties["bo"][0][k]; !ok {
+			t.Errorf("rank --json bo entry lacks %q", k)
+		}
+	}
+	save := filepath.Join(t.TempDir(), "tuning.json")
+	code, out, e = runCLI(t, "tune", "demo:tr3-black", "--json", "--save", save)
+	if code != exitOK {
+		t.Fatalf("tune: exit %d: %s", code, e)
+	}
+	var tn struct {
+		Properties map[string]struct {
+			Family     string             `json:"family"`
+			Parameters map[string]float64 `json:"parameters"`
+			CI95       map[string][2]float64
+			Residuals  []map[string]any `json:"residuals"`
+		} `json:"properties"`
+	}
+	if err := json.Unmarshal([]byte(out), &tn); err != nil {
+		t.Fatal(err)
+	}
+	pb := tn.Properties["pb"]
+	if pb.Family == "" || pb.Parameters["multiplier"] == 0 || len(pb.Residuals) == 0 {
+		t.Errorf("tune --json pb incomplete: %+v", pb)
+	}
+	if _, err := os.Stat(save); err != nil {
+		t.Errorf("tuning file not written: %v", err)
+	}
+	if code, _, _ := runCLI(t, "tune", "demo:tr3-black", "--save", save); code != exitData {
+		t.Errorf("tune --save over an existing file without --force: exit %d, want %d", code, exitData)
+	}
+}
