@@ -64,7 +64,7 @@ func NewDataset(r *lab.Report) (*Dataset, error) {
 
 	// pb: the report's Pb at Rsb, then the adjusted Rs below Pb.
 	ds.add(Pb, Point{Quantity: "Pb", Unit: "psia", Pressure: ds.Pb, Lab: ds.Pb, Rs: ds.Rsb, Source: "fluid.csv", Line: r.Fluid.Line["saturation pressure"]})
-	zeroRs := 0
+	zeroRs, atmRs := 0, 0
 	for _, p := range basis.Below {
 		if p.Pressure >= ds.Pb*(1-1e-9) {
 			continue
@@ -73,7 +73,16 @@ func NewDataset(r *lab.Report) (*Dataset, error) {
 			zeroRs++
 			continue
 		}
+		if p.Pressure <= deadOilMaxPressure {
+			// At stock-tank pressure the adjusted Rs is a small difference of large numbers;
+			// its relative error would dominate the fit.
+			atmRs++
+			continue
+		}
 		ds.add(Pb, Point{Quantity: "Rs", Unit: "scf/STB", Pressure: p.Pressure, Lab: p.Rs, Rs: p.Rs, Source: p.Source, Line: p.Line})
+	}
+	if atmRs > 0 {
+		ds.Notes = append(ds.Notes, fmt.Sprintf("pb: the adjusted Rs at atmospheric pressure is left out (%d stage): a small difference of large numbers", atmRs))
 	}
 	if zeroRs > 0 {
 		ds.Notes = append(ds.Notes, fmt.Sprintf("pb: %d stage(s) with Rs = 0 left out (a relative error needs a value above zero)", zeroRs))

@@ -7,10 +7,21 @@ import (
 	"labmatch/correlations"
 )
 
-// model predicts a property at its points for given parameters. predict must not allocate:
-// it runs for every objective evaluation.
-type model interface {
+// model is how a property's family predicts its lab points: affine or nonlinear.
+type model any
+
+// nonlinear predicts a property at its points for given parameters. predict must not
+// allocate: it runs for every objective evaluation.
+type nonlinear interface {
 	predict(q Params, pts []Point, out []float64) error
+}
+
+// affine is a model whose prediction is a + m·b + s·shiftUnit at every point, with a and b
+// from the published correlation. The tuner evaluates the correlation once and then only
+// does the arithmetic.
+type affine interface {
+	basis(pts []Point, a, b []float64) error
+	shiftUnit() float64
 }
 
 // newModel builds the model of one family of one property for a dataset. muDead and muB
@@ -82,16 +93,18 @@ type boModel struct {
 	oil correlations.Oil
 }
 
-func (m boModel) predict(q Params, pts []Point, out []float64) error {
+func (m boModel) basis(pts []Point, a, b []float64) error {
 	for i, pt := range pts {
 		v, err := m.f.FVF(pt.Pressure, pt.Rs, m.oil)
 		if err != nil {
 			return err
 		}
-		out[i] = 1 + q.Multiplier*(v-1) + q.Shift
+		a[i], b[i] = 1, v-1
 	}
 	return nil
 }
+
+func (boModel) shiftUnit() float64 { return 1 }
 
 // coShiftUnit is the unit of the co shift parameter (1/psi): the shift is given in microsips.
 const coShiftUnit = 1e-6
@@ -104,7 +117,7 @@ type coModel struct {
 	pb, rsb float64
 }
 
-func (m coModel) predict(q Params, pts []Point, out []float64) error {
+func (m coModel) basis(pts []Point, a, b []float64) error {
 	for i, pt := range pts {
 		rv, err := m.f.RelativeVolume(pt.Pressure, m.pb, m.rsb, m.oil)
 		if err != nil {
@@ -113,10 +126,12 @@ func (m coModel) predict(q Params, pts []Point, out []float64) error {
 		if rv <= 0 {
 			return correlations.ErrNotFinite
 		}
-		out[i] = q.Multiplier*(-math.Log(rv)/(pt.Pressure-m.pb)) + q.Shift*coShiftUnit
+		a[i], b[i] = 0, -math.Log(rv)/(pt.Pressure-m.pb)
 	}
 	return nil
 }
+
+func (coModel) shiftUnit() float64 { return coShiftUnit }
 
 // muDeadModel: μod_tuned = m·μod + s.
 type muDeadModel struct {
@@ -124,16 +139,18 @@ type muDeadModel struct {
 	oil correlations.Oil
 }
 
-func (m muDeadModel) predict(q Params, pts []Point, out []float64) error {
+func (m muDeadModel) basis(pts []Point, a, b []float64) error {
 	v, err := m.f.Viscosity(m.oil)
 	if err != nil {
 		return err
 	}
 	for i := range pts {
-		out[i] = q.Multiplier*v + q.Shift
+		a[i], b[i] = 0, v
 	}
 	return nil
 }
+
+func (muDeadModel) shiftUnit() float64 { return 1 }
 
 // muSatModel: μ_tuned = m·μ(μod, Rs) + s, with μod the measured (or tuned) dead-oil viscosity.
 type muSatModel struct {
@@ -142,16 +159,18 @@ type muSatModel struct {
 	muDead float64
 }
 
-func (m muSatModel) predict(q Params, pts []Point, out []float64) error {
+func (m muSatModel) basis(pts []Point, a, b []float64) error {
 	for i, pt := range pts {
 		v, err := m.f.Viscosity(m.muDead, pt.Rs, m.oil)
 		if err != nil {
 			return err
 		}
-		out[i] = q.Multiplier*v + q.Shift
+		a[i], b[i] = 0, v
 	}
 	return nil
 }
+
+func (muSatModel) shiftUnit() float64 { return 1 }
 
 // muUnderModel: μ_tuned = μb + m·(μ(p) − μb) + s, so that a multiplier keeps μ continuous at Pb.
 type muUnderModel struct {
@@ -160,16 +179,18 @@ type muUnderModel struct {
 	pb, mb float64
 }
 
-func (m muUnderModel) predict(q Params, pts []Point, out []float64) error {
+func (m muUnderModel) basis(pts []Point, a, b []float64) error {
 	for i, pt := range pts {
 		v, err := m.f.Viscosity(pt.Pressure, m.pb, m.mb, m.oil)
 		if err != nil {
 			return err
 		}
-		out[i] = m.mb + q.Multiplier*(v-m.mb) + q.Shift
+		a[i], b[i] = m.mb, v-m.mb
 	}
 	return nil
 }
+
+func (muUnderModel) shiftUnit() float64 { return 1 }
 
 // zModel: Z_tuned = m·Z(Tpr, Ppr) + s, pseudo-criticals from the gas gravity of each point
 // with the Wichert–Aziz correction when the gas is sour.
@@ -180,16 +201,18 @@ type zModel struct {
 	h2s, co2 float64
 }
 
-func (m zModel) predict(q Params, pts []Point, out []float64) error {
+func (m zModel) basis(pts []Point, a, b []float64) error {
 	for i, pt := range pts {
 		v, err := m.z(pt.Pressure, pt.GasGravity)
 		if err != nil {
 			return err
 		}
-		out[i] = q.Multiplier*v + q.Shift
+		a[i], b[i] = 0, v
 	}
 	return nil
 }
+
+func (zModel) shiftUnit() float64 { return 1 }
 
 func (m zModel) z(p, gg float64) (float64, error) {
 	ppc, tpc, err := m.pc.Critical(gg)

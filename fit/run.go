@@ -2,6 +2,7 @@ package fit
 
 import (
 	"fmt"
+	"math"
 	"runtime"
 	"sort"
 	"sync"
@@ -179,6 +180,9 @@ type RankEntry struct {
 	OutOfRange    []string `json:"out_of_range,omitempty"`
 }
 
+// aareTie is the difference in AARE (percent points) below which two families tie.
+const aareTie = 1e-6
+
 // Ranking lists, per property, every family in rank order.
 type Ranking map[PropertyID][]RankEntry
 
@@ -247,7 +251,9 @@ func rankLess(a, b RankEntry) bool {
 	if (a.Failed == "") != (b.Failed == "") {
 		return a.Failed == ""
 	}
-	if a.AARETuned != b.AARETuned {
+	// Tuned errors closer than aareTie are a tie (a property with as many points as
+	// parameters fits exactly with every family; round-off must not pick the winner).
+	if math.Abs(a.AARETuned-b.AARETuned) > aareTie {
 		return a.AARETuned < b.AARETuned
 	}
 	if a.AAREPublished != b.AAREPublished {

@@ -20,7 +20,7 @@ const (
 	fdStep         = 1e-6 // relative step of the finite-difference Jacobian
 	nmMaxEvals     = 2000
 	nmFuncTol      = 1e-12
-	nmConvergeIter = 12
+	nmConvergeIter = 5
 )
 
 // assumedRelSigma is the relative measurement uncertainty used for a parameter interval when a
@@ -66,7 +66,7 @@ type Result struct {
 // problem is one property, one family, its points and the scratch space of the objective.
 type problem struct {
 	prop     PropertyID
-	m        model
+	nl       nonlinear // nil for affine models
 	pts      []Point
 	use      []bool
 	w        []float64
@@ -75,6 +75,27 @@ type problem struct {
 	shift    bool
 	shiftMax float64
 	pred     []float64
+
+	// For affine models: prediction = a + m·b + s·unit, a and b evaluated once.
+	isAffine bool
+	a, b     []float64
+	unit     float64
+	basisErr error
+}
+
+// predict fills out with the predictions at natural parameters q.
+func (pr *problem) predict(q Params, out []float64) error {
+	if !pr.isAffine {
+		return pr.nl.predict(q, pr.pts, out)
+	}
+	if pr.basisErr != nil {
+		return pr.basisErr
+	}
+	s := q.Shift * pr.unit
+	for i := range out {
+		out[i] = pr.a[i] + q.Multiplier*pr.b[i] + s
+	}
+	return nil
 }
 
 func newProblem(ds *Dataset, prop PropertyID, m model, opts Options) (*problem, error) {
@@ -82,11 +103,20 @@ func newProblem(ds *Dataset, prop PropertyID, m model, opts Options) (*problem, 
 	if len(pts) == 0 {
 		return nil, ErrNoData
 	}
-	pr := &problem{prop: prop, m: m, pts: pts, use: make([]bool, len(pts)), w: make([]float64, len(pts)),
+	pr := &problem{prop: prop, pts: pts, use: make([]bool, len(pts)), w: make([]float64, len(pts)),
 		loss: opts.loss(), delta: opts.huberDelta(), shift: opts.mode() == MultiplierShift, pred: make([]float64, len(pts))}
 	for i := range pr.use {
 		pr.use[i] = true
 		pr.w[i] = 1
+	}
+	if prop == Pb && len(pts) > 1 {
+		// The report's Pb weighs as much as all Rs points together, so that the tuned pair
+		// honours the measured bubble point closely.
+		for i, pt := range pts {
+			if pt.Quantity == "Pb" {
+				pr.w[i] = float64(len(pts) - 1)
+			}
+		}
 	}
 	if ws, ok := opts.Weights[prop]; ok {
 		if len(ws) != len(pts) {
@@ -104,6 +134,16 @@ func newProblem(ds *Dataset, prop PropertyID, m model, opts Options) (*problem, 
 			return nil, fmt.Errorf("fit: %s: excluded point %d does not exist (%d points)", prop, i, len(pts))
 		}
 		pr.use[i] = false
+	}
+	switch m := m.(type) {
+	case affine:
+		pr.isAffine, pr.unit = true, m.shiftUnit()
+		pr.a, pr.b = make([]float64, len(pts)), make([]float64, len(pts))
+		pr.basisErr = m.basis(pts, pr.a, pr.b)
+	case nonlinear:
+		pr.nl = m
+	default:
+		return nil, fmt.Errorf("fit: %s: model %T is neither affine nor nonlinear", prop, m)
 	}
 	n := 0
 	mean := 0.0
@@ -154,7 +194,7 @@ func (pr *problem) residual(i int, v float64) float64 {
 
 // objective is the weighted loss at natural parameters q; penalty when the family fails.
 func (pr *problem) objective(q Params) float64 {
-	if err := pr.m.predict(q, pr.pts, pr.pred); err != nil {
+	if err := pr.predict(q, pr.pred); err != nil {
 		return penalty
 	}
 	s := 0.0
@@ -177,7 +217,7 @@ func (pr *problem) objective(q Params) float64 {
 
 // stats evaluates error statistics of the used points at parameters q into out.
 func (pr *problem) stats(q Params, vals []float64) (Stats, error) {
-	if err := pr.m.predict(q, pr.pts, vals); err != nil {
+	if err := pr.predict(q, vals); err != nil {
 		return Stats{}, err
 	}
 	var st Stats
@@ -226,8 +266,10 @@ func (pr *problem) minimize() (Params, int, error) {
 	return pr.params(res.X), res.FuncEvaluations, nil
 }
 
-// interval returns the 95 % half-widths of the natural parameters from the Gauss–Newton
-// covariance s²(JᵀJ)⁻¹, J the Jacobian of the weighed residuals by central differences.
+// interval returns the 95 % half-widths of the natural parameters. The covariance is the
+// Gauss–Newton one, σ²(JᵀJ)⁻¹, J the Jacobian of the residuals by central differences; with
+// unequal weights W it is the sandwich (JᵀWJ)⁻¹ JᵀW²J (JᵀWJ)⁻¹ σ², since the weights express
+// importance, not a known measurement variance. σ² comes from the unweighted residuals.
 func (pr *problem) interval(q Params) (half []float64, assumed bool) {
 	k := 1
 	if pr.shift {
@@ -241,13 +283,13 @@ func (pr *problem) interval(q Params) (half []float64, assumed bool) {
 	}
 	n := len(used)
 	res := make([]float64, len(pr.pts))
-	if err := pr.m.predict(q, pr.pts, res); err != nil {
+	if err := pr.predict(q, res); err != nil {
 		return nil, false
 	}
 	rss := 0.0
 	for _, i := range used {
 		r := pr.residual(i, res[i])
-		rss += pr.w[i] * r * r
+		rss += r * r
 	}
 	jac := make([][]float64, k)
 	up, dn := make([]float64, len(pr.pts)), make([]float64, len(pr.pts))
@@ -263,35 +305,37 @@ func (pr *problem) interval(q Params) (half []float64, assumed bool) {
 			qu.Shift += h
 			qd.Shift -= h
 		}
-		if pr.m.predict(qu, pr.pts, up) != nil || pr.m.predict(qd, pr.pts, dn) != nil {
+		if pr.predict(qu, up) != nil || pr.predict(qd, dn) != nil {
 			return nil, false
 		}
 		jac[j] = make([]float64, n)
 		for a, i := range used {
-			jac[j][a] = math.Sqrt(pr.w[i]) * (pr.residual(i, up[i]) - pr.residual(i, dn[i])) / (2 * h)
+			jac[j][a] = (pr.residual(i, up[i]) - pr.residual(i, dn[i])) / (2 * h)
 		}
 	}
-	// JᵀJ for k ≤ 2, inverted in closed form.
-	var a, b, d float64
-	for r := 0; r < n; r++ {
-		a += jac[0][r] * jac[0][r]
-		if k == 2 {
-			b += jac[0][r] * jac[1][r]
-			d += jac[1][r] * jac[1][r]
+	// A = JᵀWJ and B = JᵀW²J, k×k with k ≤ 2.
+	var a, b [2][2]float64
+	for r, i := range used {
+		w := pr.w[i]
+		for x := 0; x < k; x++ {
+			for y := 0; y < k; y++ {
+				a[x][y] += w * jac[x][r] * jac[y][r]
+				b[x][y] += w * w * jac[x][r] * jac[y][r]
+			}
 		}
 	}
-	var inv []float64 // diagonal of (JᵀJ)⁻¹
+	var ai [2][2]float64
 	if k == 1 {
-		if a == 0 {
+		if a[0][0] == 0 {
 			return nil, false
 		}
-		inv = []float64{1 / a}
+		ai[0][0] = 1 / a[0][0]
 	} else {
-		det := a*d - b*b
-		if det <= 0 {
+		det := a[0][0]*a[1][1] - a[0][1]*a[1][0]
+		if !(det > 0) {
 			return nil, false
 		}
-		inv = []float64{d / det, a / det}
+		ai = [2][2]float64{{a[1][1] / det, -a[0][1] / det}, {-a[1][0] / det, a[0][0] / det}}
 	}
 	dof := n - k
 	var s2, tq float64
@@ -308,7 +352,14 @@ func (pr *problem) interval(q Params) (half []float64, assumed bool) {
 	}
 	half = make([]float64, k)
 	for j := range half {
-		half[j] = tq * math.Sqrt(s2*inv[j])
+		// (A⁻¹ B A⁻¹)_jj
+		v := 0.0
+		for x := 0; x < k; x++ {
+			for y := 0; y < k; y++ {
+				v += ai[j][x] * b[x][y] * ai[y][j]
+			}
+		}
+		half[j] = tq * math.Sqrt(s2*v)
 	}
 	return half, assumed
 }
