@@ -7,6 +7,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 )
 
@@ -88,8 +89,8 @@ type WriteOptions struct {
 // WriteFolder writes r as a report folder that ReadFolder reads back: fluid.csv, dl.csv and
 // each optional table that has rows, in the units of opts.Units, with a comment line at the
 // top and "name [unit]" headers. Optional columns that are 0 in every row are left out.
-// Numbers are written with the fewest digits that read back exactly, so that a
-// read–write–read cycle keeps values to rounding of the unit conversion.
+// Numbers are written with at most 12 significant digits, so that a read–write–read cycle
+// keeps values to 1e-11 relative.
 //
 // dir is created when missing. Each file is written to a temporary file in dir and then
 // renamed over its name, so that a reader never sees half a file. Without opts.Force, an
@@ -179,8 +180,13 @@ func (w *csvWriter) value(q Quantity, unit string, v float64, optional bool) str
 		}
 		return ""
 	}
-	return fmtNum(x)
+	return strconv.FormatFloat(x, 'g', writeDigits, 64)
 }
+
+// writeDigits is the number of significant digits written: enough that read → write → read
+// keeps values to 1e-11 relative, few enough that a unit conversion's last-bit noise
+// (115.55555555555556 °C) does not reach the file.
+const writeDigits = 12
 
 // column is one column of a written table.
 type column struct {

@@ -182,7 +182,7 @@ func TestWriteMetricHeaders(t *testing.T) {
 		t.Errorf("dl header\n%s\nwant\n%s", lines[1], want)
 	}
 	fluid := readText(t, filepath.Join(dir, "fluid.csv"))
-	for _, s := range []string{"reservoir temperature,100.27777777777777,degC\n", "sample,\"INV-7, upper zone\"\n", "selected separator test,#2\n"} {
+	for _, s := range []string{"reservoir temperature,100.277777778,degC\n", "sample,\"INV-7, upper zone\"\n", "selected separator test,#2\n"} {
 		if !strings.Contains(fluid, s) {
 			t.Errorf("fluid.csv lacks %q:\n%s", s, fluid)
 		}

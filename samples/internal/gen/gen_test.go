@@ -22,6 +22,7 @@ func TestDemoReportsAreReproducible(t *testing.T) {
 		units := lab.FieldUnits()
 		if s.Metric {
 			units = lab.MetricUnits()
+			roundIn(r, units)
 		}
 		dir := filepath.Join(out, s.ID)
 		if err := lab.WriteFolder(dir, r, lab.WriteOptions{Units: units}); err != nil {

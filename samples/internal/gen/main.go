@@ -30,6 +30,7 @@ func main() {
 		units := lab.FieldUnits()
 		if s.Metric {
 			units = lab.MetricUnits()
+			roundIn(r, units)
 		}
 		if err := lab.WriteFolder(filepath.Join(*out, s.ID), r, lab.WriteOptions{Units: units, Force: true}); err != nil {
 			fmt.Fprintln(os.Stderr, "gen:", err)
@@ -286,4 +287,53 @@ func build(s spec.Spec) (*lab.Report, error) {
 	}
 	r.Viscosity = append(r.Viscosity, lab.ViscosityPoint{Pressure: atm, Oil: round(t.muod*noise(), 3)})
 	return r, nil
+}
+
+// roundIn rounds every value of r as a lab would print it in the units u (a metric report
+// prints 274.76 bara, not the conversion of 3985 psia), keeping r in field units.
+func roundIn(r *lab.Report, u lab.UnitSet) {
+	rd := func(q lab.Quantity, v *float64, dec int) {
+		if *v == 0 {
+			return
+		}
+		x, err := lab.FromField(q, u.Unit(q), *v)
+		if err != nil {
+			return
+		}
+		if y, err := lab.ToField(q, u.Unit(q), round(x, dec)); err == nil {
+			*v = y
+		}
+	}
+	f := &r.Fluid
+	rd(lab.Temperature, &f.Temperature, 1)
+	rd(lab.Pressure, &f.Pb, 2)
+	rd(lab.Pressure, &f.StdPressure, 5)
+	rd(lab.Temperature, &f.StdTemperature, 2)
+	for i := range r.DL {
+		st := &r.DL[i]
+		rd(lab.Pressure, &st.Pressure, 2)
+		rd(lab.GOR, &st.Rsd, 1)
+		rd(lab.FVF, &st.Bod, 4)
+		rd(lab.FVF, &st.Bt, 4)
+		rd(lab.Density, &st.OilDensity, 1)
+		rd(lab.GasFVF, &st.Bg, 6)
+	}
+	for i := range r.Separator {
+		t := &r.Separator[i]
+		rd(lab.FVF, &t.Bofb, 4)
+		for j := range t.Stages {
+			st := &t.Stages[j]
+			rd(lab.Pressure, &st.Pressure, 2)
+			rd(lab.Temperature, &st.Temperature, 1)
+			rd(lab.GOR, &st.GOR, 1)
+		}
+	}
+	for i := range r.CCE {
+		rd(lab.Pressure, &r.CCE[i].Pressure, 2)
+		rd(lab.Density, &r.CCE[i].Density, 1)
+	}
+	for i := range r.Viscosity {
+		rd(lab.Pressure, &r.Viscosity[i].Pressure, 2)
+		rd(lab.Viscosity, &r.Viscosity[i].Oil, 3)
+	}
 }
