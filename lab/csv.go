@@ -433,7 +433,7 @@ func parseNumber(cell string) (float64, *ParseError) {
 	default:
 		for i := len(cell) - 1; i > 0; i-- {
 			if _, err := strconv.ParseFloat(strings.TrimSpace(cell[:i]), 64); err == nil {
-				if r, _ := utf8.DecodeRuneInString(strings.TrimSpace(cell[i:])); unicode.IsLetter(r) || r == '°' {
+				if isUnitName(strings.TrimSpace(cell[i:])) {
 					pe.Hint = "write the unit in the header, as name [unit], and only the number in the cell"
 				}
 				break
@@ -458,4 +458,17 @@ func truncate(s string, n int) string {
 	}
 	r := []rune(s)
 	return string(r[:n]) + "…"
+}
+
+// isUnitName reports whether s names a unit of some quantity ("psia", "degC", "sm3/sm3").
+func isUnitName(s string) bool {
+	for q := Quantity(0); q < numQuantities; q++ {
+		if q == Dimensionless {
+			continue
+		}
+		if _, err := CanonicalUnit(q, s); err == nil {
+			return true
+		}
+	}
+	return false
 }
