@@ -181,7 +181,8 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 	exclude := fs.String("exclude", "", "leave points out: `list` of property:index, e.g. bo:3,mu_sat:0 (indexes as listed)")
 	asJSON := fs.Bool("json", false, "print JSON")
 	save := fs.String("save", "", "write the tuning file (JSON) to `F`")
-	force := fs.Bool("force", false, "overwrite an existing tuning file")
+	tuning := fs.String("tuning", "", "apply the families and parameters of tuning file `F` instead of tuning")
+	force := fs.Bool("force", false, "overwrite an existing --save file; apply a --tuning file made from other report files")
 	pos, code := parseFlags(fs, args, stdout, stderr)
 	if code >= 0 {
 		return code
@@ -210,8 +211,27 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, err)
 		return exitData
 	}
-	results, err := fit.TuneAll(ds, choice, opts)
-	if err != nil {
+	var results map[fit.PropertyID]fit.Result
+	if *tuning != "" {
+		if len(choice) > 0 || *exclude != "" {
+			return usageError(fs, stderr, "--tuning takes the families, options and excluded points from the file; drop the family flags and --exclude")
+		}
+		tf, err := export.LoadTuning(*tuning)
+		if err != nil {
+			fmt.Fprintln(stderr, err)
+			return exitData
+		}
+		if err := tf.Matches(r, *force); err != nil {
+			fmt.Fprintln(stderr, err)
+			return exitData
+		}
+		opts = tf.FitOptions()
+		results, err = fit.Apply(ds, tf.Results(), opts)
+		if err != nil {
+			fmt.Fprintln(stderr, err)
+			return exitData
+		}
+	} else if results, err = fit.TuneAll(ds, choice, opts); err != nil {
 		fmt.Fprintln(stderr, err)
 		return exitData
 	}
@@ -235,7 +255,11 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 		}
 		return writeJSON(stdout, stderr, map[string]any{"report": ds.Name, "properties": props, "notes": nonNil(ds.Notes)})
 	}
-	fmt.Fprintf(stdout, "%s — tuned to the report (separator basis, %s, %s errors)\n", ds.Name, opts.Mode, opts.Loss)
+	how := "tuned to the report"
+	if *tuning != "" {
+		how = "parameters from " + *tuning
+	}
+	fmt.Fprintf(stdout, "%s — %s (separator basis, %s, %s errors)\n", ds.Name, how, opts.Resolved().Mode, opts.Resolved().Loss)
 	for _, p := range fit.Properties {
 		res, ok := results[p]
 		if !ok {

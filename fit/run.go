@@ -61,10 +61,11 @@ func (ds *Dataset) chainInputs(dead, sat *Result) (muDead, muB float64, err erro
 // the measured dead-oil viscosity and viscosity at Pb, or published fallbacks when the report
 // has none (TuneAll chains the tuned values instead).
 func Tune(ds *Dataset, prop PropertyID, family string, opts Options) (Result, error) {
-	return tuneWith(ds, prop, family, opts, nil, nil)
+	return tuneWith(ds, prop, family, opts, nil, nil, nil)
 }
 
-func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, sat *Result) (Result, error) {
+// tuneWith tunes (fixed == nil) or evaluates at fixed parameters one family of a property.
+func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, sat *Result, fixed *Params) (Result, error) {
 	muDead, muB, err := 0.0, 0.0, error(nil)
 	if prop == MuSat || prop == MuUnder {
 		if muDead, muB, err = ds.chainInputs(dead, sat); err != nil {
@@ -85,10 +86,16 @@ func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, s
 	if res.Published, err = pr.stats(Published, pubVals); err != nil {
 		return res, fmt.Errorf("fit: %s %s: the published correlation cannot be evaluated: %w", prop, family, err)
 	}
-	q, evals, err := pr.minimize()
-	res.Evals = evals
-	if err != nil {
-		return res, err
+	var q Params
+	if fixed != nil {
+		q = *fixed
+	} else {
+		var evals int
+		q, evals, err = pr.minimize()
+		res.Evals = evals
+		if err != nil {
+			return res, err
+		}
 	}
 	res.Params = q
 	tunedVals := make([]float64, len(pr.pts))
@@ -135,6 +142,23 @@ type Choice map[PropertyID]string
 // tuned dead-oil and saturated viscosities to the live-oil families where the report lacks
 // measurements. Properties without data are absent from the result.
 func TuneAll(ds *Dataset, choice Choice, opts Options) (map[PropertyID]Result, error) {
+	return runAll(ds, choice, nil, opts)
+}
+
+// Apply evaluates recorded families and parameters (a loaded tuning file) on a dataset
+// without tuning: statistics, residuals and intervals at the recorded parameters.
+// Properties without lab data are absent from the result; recorded properties that the
+// dataset has data for but stored lacks are tuned afresh.
+func Apply(ds *Dataset, stored map[PropertyID]Result, opts Options) (map[PropertyID]Result, error) {
+	choice := Choice{}
+	params := map[PropertyID]Params{}
+	for p, r := range stored {
+		choice[p], params[p] = r.Family, r.Params
+	}
+	return runAll(ds, choice, params, opts)
+}
+
+func runAll(ds *Dataset, choice Choice, fixed map[PropertyID]Params, opts Options) (map[PropertyID]Result, error) {
 	out := map[PropertyID]Result{}
 	var rk Ranking
 	for _, p := range Properties {
@@ -159,7 +183,11 @@ func TuneAll(ds *Dataset, choice Choice, opts Options) (map[PropertyID]Result, e
 		if r, ok := out[MuSat]; ok {
 			sat = &r
 		}
-		r, err := tuneWith(ds, p, fam, opts, dead, sat)
+		var fx *Params
+		if q, ok := fixed[p]; ok {
+			fx = &q
+		}
+		r, err := tuneWith(ds, p, fam, opts, dead, sat, fx)
 		if err != nil {
 			return out, err
 		}

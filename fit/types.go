@@ -134,3 +134,9 @@ type Point struct {
 	Source     string  // file the value comes from
 	Line       int     // line in Source
 }
+
+// Resolved returns the options with every default filled in, as the tuner uses them.
+func (o Options) Resolved() Options {
+	o.Mode, o.Loss, o.HuberDelta, o.PseudoCritical = o.mode(), o.loss(), o.huberDelta(), o.pseudoCritical()
+	return o
+}
