@@ -184,3 +184,35 @@ func TestRankAndTuneJSON(t *testing.T) {
 		t.Errorf("tune --save over an existing file without --force: exit %d, want %d", code, exitData)
 	}
 }
+
+// A tuning file applies to the report it was made from; a changed report is refused unless
+// --force is given.
+func TestTuningFileRefusedForChangedReport(t *testing.T) {
+	dir := t.TempDir()
+	if code, _, e := runCLI(t, "samples", "--out", dir); code != exitOK {
+		t.Fatalf("samples: %s", e)
+	}
+	rep := filepath.Join(dir, "tr12-heavy")
+	tf := filepath.Join(dir, "t.json")
+	if code, _, e := runCLI(t, "tune", rep, "--save", tf); code != exitOK {
+		t.Fatalf("tune --save: %s", e)
+	}
+	if code, out, e := runCLI(t, "tune", rep, "--tuning", tf); code != exitOK || !strings.Contains(out, "parameters from") {
+		t.Fatalf("tune --tuning on the same report: exit %d: %s", code, e)
+	}
+	vis := filepath.Join(rep, "viscosity.csv")
+	data, err := os.ReadFile(vis)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(vis, append(data, []byte("# a comment changes the fingerprint\n")...), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, e := runCLI(t, "tune", rep, "--tuning", tf)
+	if code != exitData || !strings.Contains(e, "fingerprint") {
+		t.Errorf("changed report: exit %d, stderr %q; want exit 1 naming the fingerprint", code, e)
+	}
+	if code, _, e := runCLI(t, "tune", rep, "--tuning", tf, "--force"); code != exitOK {
+		t.Errorf("changed report with --force: exit %d: %s", code, e)
+	}
+}
