@@ -181,8 +181,12 @@ func (m *Model) At(p float64) (State, error) {
 		if err != nil {
 			return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
 		}
+		mu0, err := m.under.Viscosity(m.Pb, m.Pb, m.MuB, m.Oil)
+		if err != nil {
+			return s, fmt.Errorf("fit: model: oil viscosity at Pb: %w", err)
+		}
 		qu := m.Params[MuUnder]
-		s.OilViscosity = m.MuB + qu.Multiplier*(mu-m.MuB) + qu.Shift
+		s.OilViscosity = m.MuB + qu.Multiplier*(mu-mu0) + qu.Shift
 	}
 	if s.OilDensity, err = correlations.OilDensity(s.Rs, s.Bo, m.Oil); err != nil {
 		return s, fmt.Errorf("fit: model: oil density at %g psia: %w", p, err)

@@ -172,7 +172,8 @@ func (m muSatModel) basis(pts []Point, a, b []float64) error {
 
 func (muSatModel) shiftUnit() float64 { return 1 }
 
-// muUnderModel: μ_tuned = μb + m·(μ(p) − μb) + s, so that a multiplier keeps μ continuous at Pb.
+// muUnderModel: μ_tuned = μb + m·(μ(p) − μ(Pb)) + s: a multiplier on the increase above Pb,
+// so that μ stays continuous at Pb.
 type muUnderModel struct {
 	f      correlations.UnderViscosityFamily
 	oil    correlations.Oil
@@ -180,12 +181,18 @@ type muUnderModel struct {
 }
 
 func (m muUnderModel) basis(pts []Point, a, b []float64) error {
+	// Some published forms are not exactly μb at Pb (Kartoatmodjo–Schmidt: 1.00081·μb);
+	// the increase is taken from the family's own value at Pb so the tuned curve is continuous.
+	v0, err := m.f.Viscosity(m.pb, m.pb, m.mb, m.oil)
+	if err != nil {
+		return err
+	}
 	for i, pt := range pts {
 		v, err := m.f.Viscosity(pt.Pressure, m.pb, m.mb, m.oil)
 		if err != nil {
 			return err
 		}
-		a[i], b[i] = m.mb, v-m.mb
+		a[i], b[i] = m.mb, v-v0
 	}
 	return nil
 }

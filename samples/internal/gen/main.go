@@ -120,7 +120,11 @@ func (t *truth) muSat(rs float64) (float64, error) {
 
 func (t *truth) muUnder(p float64) (float64, error) {
 	v, err := t.under.Viscosity(p, t.pb, t.muob, t.oil)
-	return t.muob + t.s.MMuUnder*(v-t.muob), err
+	if err != nil {
+		return 0, err
+	}
+	v0, err := t.under.Viscosity(t.pb, t.pb, t.muob, t.oil)
+	return t.muob + t.s.MMuUnder*(v-v0), err
 }
 
 func (t *truth) z(p, gg float64) (float64, error) {

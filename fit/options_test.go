@@ -1,0 +1,109 @@
+package fit
+
+import (
+	"math"
+	"testing"
+
+	"labmatch/samples"
+)
+
+// Multiplier and shift: Bo data made as 1 + m·(Bo − 1) + s with no noise give back m and s.
+func TestMultiplierShiftRecovery(t *testing.T) {
+	ds := synthDatasetNoise(t, Bo, "standing", 1.1, 3, 0)
+	const shift = 0.012 // rb/STB
+	for i := range ds.Points[Bo] {
+		ds.Points[Bo][i].Lab += shift
+	}
+	r, err := Tune(ds, Bo, "standing", Options{Mode: MultiplierShift})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(r.Params.Multiplier-1.1) > 1e-3 || math.Abs(r.Params.Shift-shift) > 2e-4 {
+		t.Errorf("params %+v, want multiplier 1.1 and shift %g", r.Params, shift)
+	}
+	if _, ok := r.CI95["shift"]; !ok {
+		t.Error("no interval for the shift")
+	}
+}
+
+// On exact data every loss finds the same multiplier; with one gross outlier the Huber loss
+// stays closer to the truth than squared relative errors.
+func TestLosses(t *testing.T) {
+	ds := synthDatasetNoise(t, Bo, "standing", 0.92, 4, 0)
+	for _, l := range []Loss{Relative, Absolute, Huber} {
+		r, err := Tune(ds, Bo, "standing", Options{Loss: l})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(r.Params.Multiplier-0.92) > 1e-4 {
+			t.Errorf("%s: multiplier %.6f on exact data, want 0.92", l, r.Params.Multiplier)
+		}
+	}
+	ds.Points[Bo][4].Lab *= 1.06 // a 6 % outlier
+	sq, err := Tune(ds, Bo, "standing", Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	hu, err := Tune(ds, Bo, "standing", Options{Loss: Huber, HuberDelta: 0.005})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(hu.Params.Multiplier-0.92) >= math.Abs(sq.Params.Multiplier-0.92) {
+		t.Errorf("Huber %.5f is not closer to 0.92 than least squares %.5f", hu.Params.Multiplier, sq.Params.Multiplier)
+	}
+}
+
+// The tuned model on a demo report: an exact Pb/Rs inverse pair, continuous at Pb, and the
+// usual trends (common practice: Rs constant and Bo falling above Pb, viscosity rising).
+func TestModelConsistency(t *testing.T) {
+	for _, s := range samples.Specs {
+		r, err := samples.Load(s.ID)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ds, err := NewDataset(r)
+		if err != nil {
+			t.Fatal(err)
+		}
+		res, err := TuneAll(ds, nil, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		m, err := NewModel(ds, res, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if rs, _ := m.Rs(m.Pb * (1 - 1e-12)); math.Abs(rs/m.Rsb-1) > 1e-6 {
+			t.Errorf("%s: Rs just below the tuned Pb %.6g, want Rsb %.6g", s.ID, rs, m.Rsb)
+		}
+		// The tuned Pb honours the report's within the fit (the Pb point weighs as all Rs points).
+		if math.Abs(m.Pb/ds.Pb-1) > 0.01 {
+			t.Errorf("%s: tuned Pb %.1f, report %.1f", s.ID, m.Pb, ds.Pb)
+		}
+		below, _ := m.At(m.Pb * (1 - 1e-9))
+		above, _ := m.At(m.Pb * (1 + 1e-9))
+		if math.Abs(below.Bo/above.Bo-1) > 1e-6 || math.Abs(below.OilViscosity/above.OilViscosity-1) > 1e-6 {
+			t.Errorf("%s: not continuous at Pb: %+v / %+v", s.ID, below, above)
+		}
+		prev, err := m.At(100)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for p := 200.0; p < m.Pb+4000; p += 100 {
+			st, err := m.At(p)
+			if err != nil {
+				t.Fatalf("%s: At(%g): %v", s.ID, p, err)
+			}
+			if p <= m.Pb && (st.Rs < prev.Rs || st.Bo < prev.Bo) {
+				t.Errorf("%s: Rs or Bo falls as p rises to %g below Pb", s.ID, p)
+			}
+			if prev.Pressure > m.Pb && (st.Bo > prev.Bo || st.OilViscosity < prev.OilViscosity || st.Rs != m.Rsb) {
+				t.Errorf("%s: above Pb at %g: Bo must fall, viscosity rise, Rs stay", s.ID, p)
+			}
+			if st.Bg >= prev.Bg {
+				t.Errorf("%s: Bg rises with pressure at %g", s.ID, p)
+			}
+			prev = st
+		}
+	}
+}
