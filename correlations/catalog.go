@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"strings"
 )
 
 // catalog is built once from the per-group entry lists and never modified.
@@ -68,10 +69,18 @@ func (e Entry) Check(values map[string]float64) []string {
 		if r.Unit != "" && r.Unit != "°API" {
 			unit = " " + r.Unit
 		}
-		msgs = append(msgs, fmt.Sprintf("%s %s%s is %s the %s–%s range of %s's data",
-			r.Input, fmtNum(v), unit, side, fmtNum(r.Min), fmtNum(r.Max), e.Authors))
+		msgs = append(msgs, fmt.Sprintf("%s %s%s is %s the %s–%s range of %s data",
+			r.Input, fmtNum(v), unit, side, fmtNum(r.Min), fmtNum(r.Max), possessive(e.Authors)))
 	}
 	return msgs
+}
+
+// possessive gives "Glasø's", "Vasquez and Beggs'".
+func possessive(name string) string {
+	if strings.HasSuffix(name, "s") {
+		return name + "'"
+	}
+	return name + "'s"
 }
 
 func fmtNum(v float64) string { return strconv.FormatFloat(v, 'g', 4, 64) }
