@@ -71,7 +71,7 @@ func runRank(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return usageError(fs, stderr, "%v", err)
 	}
-	ds, code := loadDataset(pos[0], stderr)
+	_, ds, code := loadDataset(pos[0], stderr)
 	if code >= 0 {
 		return code
 	}
@@ -106,21 +106,23 @@ func runRank(args []string, stdout, stderr io.Writer) int {
 	return exitOK
 }
 
-func loadDataset(arg string, stderr io.Writer) (*fit.Dataset, int) {
+// loadDataset reads a report and builds its tuning dataset; on failure it reports the error
+// and returns the exit code (≥ 0).
+func loadDataset(arg string, stderr io.Writer) (*lab.Report, *fit.Dataset, int) {
 	r, err := loadReport(arg)
 	if err != nil {
 		fmt.Fprintln(stderr, err)
-		return nil, exitData
+		return nil, nil, exitData
 	}
 	ds, err := fit.NewDataset(r)
 	if err != nil {
 		fmt.Fprintln(stderr, err)
-		return nil, exitData
+		return nil, nil, exitData
 	}
 	if ds.Name == "" {
 		ds.Name = arg
 	}
-	return ds, -1
+	return r, ds, -1
 }
 
 func propertyTitle(p fit.PropertyID) string {
@@ -201,15 +203,9 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		return usageError(fs, stderr, "%v", err)
 	}
-	r, err := loadReport(pos[0])
-	if err != nil {
-		fmt.Fprintln(stderr, err)
-		return exitData
-	}
-	ds, err := fit.NewDataset(r)
-	if err != nil {
-		fmt.Fprintln(stderr, err)
-		return exitData
+	r, ds, code := loadDataset(pos[0], stderr)
+	if code >= 0 {
+		return code
 	}
 	var results map[fit.PropertyID]fit.Result
 	if *tuning != "" {
