@@ -37,6 +37,8 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 		}
 	} else {
 		fmt.Fprintf(stdout, "%s: %s, %.0f degF, Pb %.0f psia, %.1f API\n", pos[0], r.Fluid.Sample, r.Fluid.Temperature, r.Fluid.Pb, r.Fluid.API)
+		printProcessing(stdout, r)
+		fmt.Fprintln(stdout)
 		lab.FormatFindings(stdout, findings)
 	}
 	for _, f := range findings {
@@ -45,4 +47,27 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 		}
 	}
 	return exitOK
+}
+
+// printProcessing summarises what the report gives the tuning: the separator basis, the
+// CCE's Y-function and implied saturation pressure, and the undersaturated compressibility.
+func printProcessing(w io.Writer, r *lab.Report) {
+	if b, err := r.SeparatorBasis(); err == nil {
+		fmt.Fprintf(w, "separator basis (test %s): Rsb %.0f scf/STB, Bob %.4f rb/STB; DL at Pb: Rsdb %.0f scf/bbl, Bodb %.4f\n",
+			b.Test, b.Rsfb, b.Bofb, b.Rsdb, b.Bodb)
+	} else {
+		fmt.Fprintf(w, "separator basis: %v\n", err)
+	}
+	if len(r.CCE) == 0 {
+		return
+	}
+	if y, err := lab.FitY(r.Fluid.Pb, r.CCE); err == nil {
+		fmt.Fprintf(w, "CCE Y-function: Y = %.4g + %.4g·p (p in psia), r² %.4f over %d points\n", y.A, y.B, y.R2, len(y.Points))
+	}
+	if e, err := lab.ImpliedPsat(r.Fluid.Pb, r.CCE); err == nil {
+		fmt.Fprintf(w, "saturation pressure implied by the CCE: %.0f psia (reported %.0f, %+.2f %%)\n", e.Psat, e.Reported, 100*(e.Psat/e.Reported-1))
+	}
+	if _, fit, err := lab.UndersaturatedCo(r.Fluid.Pb, r.CCE); err == nil {
+		fmt.Fprintf(w, "undersaturated co from the CCE: %.3g 1/psi at Pb, %.3g 1/psi at %.0f psia\n", fit.Co(r.Fluid.Pb), fit.Co(fit.Pmax), fit.Pmax)
+	}
 }
