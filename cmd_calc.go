@@ -78,9 +78,9 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	temp := quantity(fs, "temperature", lab.Temperature, 0, "reservoir `temperature` (default unit degF)")
 	rsb := quantity(fs, "rsb", lab.GOR, 0, "solution GOR at the bubble point (default unit scf/STB)")
 	press := quantity(fs, "pressure", lab.Pressure, 0, "`pressure` to evaluate at (default unit psia)")
-	sepP := quantity(fs, "sep-pressure", lab.Pressure, 114.7, "first-stage separator `pressure` (Vasquez–Beggs gas-gravity normalisation)")
-	sepT := quantity(fs, "sep-temperature", lab.Temperature, 60, "first-stage separator `temperature`")
-	fams := familyFlags(fs, fit.Pb, fit.Bo, fit.Co, fit.MuDead, fit.MuSat, fit.MuUnder)
+	sepP := quantity(fs, "sep-pressure", lab.Pressure, 114.7, "first-stage separator `pressure`, for the separator-gas normalisations (default 114.7 psia)")
+	sepT := quantity(fs, "sep-temperature", lab.Temperature, 60, "first-stage separator `temperature` (default 60 degF)")
+	fams := familyFlags(fs, fit.DefaultFamilies, fit.Pb, fit.Bo, fit.Co, fit.MuDead, fit.MuSat, fit.MuUnder)
 	asJSON := fs.Bool("json", false, "print JSON")
 	pos, code := parseFlags(fs, args, stdout, stderr)
 	if code >= 0 {
@@ -89,9 +89,12 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	if len(pos) > 0 {
 		return usageError(fs, stderr, "unexpected argument %q", pos[0])
 	}
-	for name, ok := range map[string]bool{"--api": *api > 0, "--gas-gravity": *gg > 0, "--temperature": temp.set, "--rsb": rsb.set, "--pressure": press.set} {
-		if !ok {
-			return usageError(fs, stderr, "%s is required", name)
+	for _, req := range []struct {
+		name string
+		ok   bool
+	}{{"--api", *api > 0}, {"--gas-gravity", *gg > 0}, {"--temperature", temp.set}, {"--rsb", rsb.set && rsb.v > 0}, {"--pressure", press.set}} {
+		if !req.ok {
+			return usageError(fs, stderr, "%s is required (and must be above zero)", req.name)
 		}
 	}
 	ds := &fit.Dataset{Oil: correlations.Oil{API: *api, GasGravity: *gg, Temperature: temp.v, SepPressure: sepP.v, SepTemperature: sepT.v},
@@ -133,7 +136,7 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 		{"bubble point Pb", m.Families[fit.Pb], m.Pb, "psia"},
 		{"solution GOR Rs", m.Families[fit.Pb], st.Rs, "scf/STB"},
 		{"oil FVF Bo", m.Families[fit.Bo], st.Bo, "rb/STB"},
-		{"compressibility co", coFamily(m, press.v), st.Co, "1/psi"},
+		{"compressibility co (at p)", coFamily(m, press.v), st.Co, "1/psi"},
 		{"oil density", "material balance", st.OilDensity, "lbm/ft3"},
 		{"dead-oil viscosity", m.Families[fit.MuDead], m.MuDead, "cP"},
 		{"oil viscosity", viscFamily(m, press.v), st.OilViscosity, "cP"},
@@ -200,6 +203,20 @@ func runCalcGas(args []string, stdout, stderr io.Writer) int {
 	if !(*gg > 0) || !temp.set || !press.set {
 		return usageError(fs, stderr, "--gas-gravity, --temperature and --pressure are required")
 	}
+	for name, v := range map[string]float64{"--h2s": *h2s, "--co2": *co2, "--n2": *n2} {
+		if !(v >= 0 && v <= 100) {
+			return usageError(fs, stderr, "%s %g: want mole percent between 0 and 100", name, v)
+		}
+	}
+	if *h2s+*co2+*n2 > 100 {
+		return usageError(fs, stderr, "--h2s, --co2 and --n2 add up to %g %%, more than 100", *h2s+*co2+*n2)
+	}
+	if err := knownID(correlations.PseudoCritical, *ppcID); err != nil {
+		return usageError(fs, stderr, "--ppc: %v", err)
+	}
+	if err := knownID(correlations.GasZ, *zID); err != nil {
+		return usageError(fs, stderr, "--z: %v", err)
+	}
 	res, err := correlations.EvaluateGas(correlations.GasInput{
 		GasGravity: *gg, Temperature: temp.v, Pressure: press.v,
 		H2S: *h2s / 100, CO2: *co2 / 100, N2: *n2 / 100, PseudoCritical: *ppcID, Z: *zID,
@@ -239,6 +256,15 @@ func runCalcGas(args []string, stdout, stderr io.Writer) int {
 
 func ids(p correlations.Property) string { return joinIDs(correlations.IDs(p)) }
 
+func knownID(p correlations.Property, id string) error {
+	for _, k := range correlations.IDs(p) {
+		if k == id {
+			return nil
+		}
+	}
+	return fmt.Errorf("unknown family %q (known: %s)", id, ids(p))
+}
+
 func printWarnings(w io.Writer, ws []string) {
 	for _, s := range ws {
 		fmt.Fprintln(w, "warning:", s)
@@ -248,6 +274,7 @@ func printWarnings(w io.Writer, ws []string) {
 func writeJSON(stdout, stderr io.Writer, v any) int {
 	enc := json.NewEncoder(stdout)
 	enc.SetIndent("", "  ")
+	enc.SetEscapeHTML(false)
 	if err := enc.Encode(v); err != nil {
 		fmt.Fprintln(stderr, "labmatch:", err)
 		return exitData
@@ -258,11 +285,16 @@ func writeJSON(stdout, stderr io.Writer, v any) int {
 // familySet holds one --<property> flag per tuned property.
 type familySet map[fit.PropertyID]*string
 
-func familyFlags(fs *flag.FlagSet, props ...fit.PropertyID) familySet {
+// familyFlags adds one family flag per property; defaults names each property's default
+// family, or nil when the default is the best-ranked family.
+func familyFlags(fs *flag.FlagSet, defaults fit.Choice, props ...fit.PropertyID) familySet {
 	set := familySet{}
 	for _, p := range props {
-		name := flagName(p)
-		set[p] = fs.String(name, "", fmt.Sprintf("%s `family`: %s", p, joinIDs(fit.Families(p))))
+		def := "best-ranked"
+		if defaults != nil {
+			def = defaults[p]
+		}
+		set[p] = fs.String(flagName(p), "", fmt.Sprintf("%s `family`: %s (default: %s)", p, joinIDs(fit.Families(p)), def))
 	}
 	return set
 }

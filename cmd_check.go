@@ -1,7 +1,6 @@
 package main
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 
@@ -10,7 +9,7 @@ import (
 
 func runCheck(args []string, stdout, stderr io.Writer) int {
 	fs := newFlagSet("check", "labmatch check DIR [--json]",
-		"Load a report folder and list its QC findings, grouped by file, worst first.\nExit status 1 when the folder cannot be read or any finding is an error.")
+		"Load a report folder (or demo:<id>) and list its QC findings, grouped by file, worst\nfirst. Exit status 1 when the folder cannot be read or any finding is an error.")
 	asJSON := fs.Bool("json", false, "print the findings as a JSON array")
 	pos, code := parseFlags(fs, args, stdout, stderr)
 	if code >= 0 {
@@ -19,7 +18,7 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 	if len(pos) != 1 {
 		return usageError(fs, stderr, "want one report folder, got %d arguments", len(pos))
 	}
-	r, err := lab.ReadFolder(pos[0])
+	r, err := loadReport(pos[0])
 	if err != nil {
 		fmt.Fprintln(stderr, err)
 		return exitData
@@ -29,11 +28,8 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 		if findings == nil {
 			findings = []lab.Finding{}
 		}
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		if err := enc.Encode(findings); err != nil {
-			fmt.Fprintln(stderr, "labmatch:", err)
-			return exitData
+		if code := writeJSON(stdout, stderr, findings); code != exitOK {
+			return code
 		}
 	} else {
 		fmt.Fprintf(stdout, "%s: %s, %.0f degF, Pb %.0f psia, %.1f API\n", pos[0], r.Fluid.Sample, r.Fluid.Temperature, r.Fluid.Pb, r.Fluid.API)

@@ -44,11 +44,18 @@ func runDemo(stdout, stderr io.Writer) int {
 		if !ok {
 			continue
 		}
-		ci := res.CI95["multiplier"]
-		fmt.Fprintf(tw, "  %s\t%s\t%d\t%.2f\t%.2f\t%.3f\t[%.3f, %.3f]\n", p, res.Family, res.Tuned.Points,
-			res.Published.AARE, res.Tuned.AARE, res.Params.Multiplier, ci[0], ci[1])
+		ci := "not determined"
+		if c, ok := res.CI95["multiplier"]; ok {
+			ci = fmt.Sprintf("[%.3f, %.3f]", c[0], c[1])
+			if res.CIAssumed {
+				ci += " assumed"
+			}
+		}
+		fmt.Fprintf(tw, "  %s\t%s\t%d\t%.2f\t%.2f\t%.3f\t%s\n", p, res.Family, res.Tuned.Points,
+			res.Published.AARE, res.Tuned.AARE, res.Params.Multiplier, ci)
 	}
 	tw.Flush()
+	fmt.Fprintln(stdout, "  (\"assumed\": one point per parameter, so the interval rests on a typical lab uncertainty)")
 	fmt.Fprintln(stdout, `
 Next: "labmatch rank demo:tr3-black" scores every family; "labmatch tune demo:tr3-black"
 shows the residuals; "labmatch samples --out DIR" writes the demo reports as folders.

@@ -4,6 +4,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"os"
 	"sort"
 	"strings"
 	"text/tabwriter"
@@ -52,12 +53,15 @@ func (o optionFlags) options() (fit.Options, error) {
 	if *o.ppc != "sutton" && *o.ppc != "standing" {
 		return opts, fmt.Errorf("--ppc %q: want sutton or standing", *o.ppc)
 	}
+	if !(*o.huber > 0 && *o.huber < 1) {
+		return opts, fmt.Errorf("--huber-delta %g: want a relative error between 0 and 1, e.g. 0.02", *o.huber)
+	}
 	return opts, nil
 }
 
 func runRank(args []string, stdout, stderr io.Writer) int {
 	fs := newFlagSet("rank", "labmatch rank DIR [--json]",
-		"Score every correlation family of every property against the report, as published and\nas tuned with one multiplier, best first (by tuned AARE, then published AARE, then id).\nDIR may be demo:<id> for a built-in report.")
+		"Score every correlation family of every property against the report, as published and\nas tuned (--mode), best first: by tuned AARE (to 0.01 %), then published AARE, then id.\nLive-oil viscosity families are scored with the measured dead-oil viscosity and viscosity\nat Pb. DIR may be demo:<id> for a built-in report.")
 	asJSON := fs.Bool("json", false, "print JSON")
 	of := addOptionFlags(fs)
 	pos, code := parseFlags(fs, args, stdout, stderr)
@@ -80,25 +84,38 @@ func runRank(args []string, stdout, stderr io.Writer) int {
 		out := map[string]any{"report": ds.Name, "properties": rk, "notes": nonNil(ds.Notes)}
 		return writeJSON(stdout, stderr, out)
 	}
-	fmt.Fprintf(stdout, "%s — families ranked by tuned AARE (separator basis)\n", ds.Name)
+	fmt.Fprintf(stdout, "%s — families ranked by tuned AARE (separator basis, %s)\n", ds.Name, opts.Resolved().Mode)
 	for _, p := range fit.Properties {
 		es, ok := rk[p]
 		if !ok {
 			continue
 		}
-		fmt.Fprintf(stdout, "\n%s (%d points)\n", propertyTitle(p), len(ds.Points[p]))
+		fmt.Fprintf(stdout, "\n%s (%s)\n", propertyTitle(p), plural(len(ds.Points[p]), "point"))
 		tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', 0)
-		fmt.Fprintln(tw, "  #\tfamily\tAARE published %\tAARE tuned %\tmultiplier\tdata range")
+		shiftCol := ""
+		if opts.Resolved().Mode == fit.MultiplierShift {
+			shiftCol = "\tshift"
+		}
+		fmt.Fprintln(tw, "  #\tfamily\tAARE published %\tAARE tuned %\tmultiplier"+shiftCol+"\tremarks")
 		for i, e := range es {
 			if e.Failed != "" {
-				fmt.Fprintf(tw, "  %d\t%s\t-\t-\t-\tcannot be evaluated: %s\n", i+1, e.Family, e.Failed)
+				dash := ""
+				if shiftCol != "" {
+					dash = "\t-"
+				}
+				fmt.Fprintf(tw, "  %d\t%s\t-\t-\t-%s\tcannot be evaluated: %s\n", i+1, e.Family, dash, e.Failed)
 				continue
 			}
-			rng := "inside"
+			var remarks []string
 			if !e.InRange {
-				rng = "OUTSIDE: " + strings.Join(e.OutOfRange, "; ")
+				remarks = append(remarks, "OUTSIDE its data: "+strings.Join(e.OutOfRange, "; "))
 			}
-			fmt.Fprintf(tw, "  %d\t%s\t%.2f\t%.2f\t%.3f\t%s\n", i+1, e.Family, e.AAREPublished, e.AARETuned, e.Multiplier, rng)
+			remarks = append(remarks, e.Flags...)
+			sh := ""
+			if e.Shift != nil {
+				sh = fmt.Sprintf("\t%.4g", *e.Shift)
+			}
+			fmt.Fprintf(tw, "  %d\t%s\t%.2f\t%.2f\t%.3f%s\t%s\n", i+1, e.Family, *e.AAREPublished, *e.AARETuned, *e.Multiplier, sh, strings.Join(remarks, "; "))
 		}
 		tw.Flush()
 	}
@@ -145,6 +162,14 @@ func propertyTitle(p fit.PropertyID) string {
 	return string(p)
 }
 
+// plural writes "1 point", "5 points".
+func plural(n int, word string) string {
+	if n == 1 {
+		return fmt.Sprintf("%d %s", n, word)
+	}
+	return fmt.Sprintf("%d %ss", n, word)
+}
+
 func nonNil(s []string) []string {
 	if s == nil {
 		return []string{}
@@ -165,6 +190,7 @@ func printNotes(w io.Writer, notes []string) {
 type tuneJSON struct {
 	Family        string                `json:"family"`
 	Parameters    map[string]float64    `json:"parameters"`
+	ShiftUnit     string                `json:"shift_unit,omitempty"`
 	CI95          map[string][2]float64 `json:"ci95"`
 	CIAssumed     bool                  `json:"ci95_assumed_uncertainty"`
 	AAREPublished float64               `json:"aare_pct_published"`
@@ -172,13 +198,14 @@ type tuneJSON struct {
 	Published     fit.Stats             `json:"published"`
 	Tuned         fit.Stats             `json:"tuned"`
 	Flags         []string              `json:"flags"`
+	OutOfRange    []string              `json:"out_of_range"`
 	Residuals     []fit.Residual        `json:"residuals"`
 }
 
 func runTune(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("tune", "labmatch tune DIR [--pb ID --bo ID --co ID --mu-dead ID --mu-sat ID --mu-under ID --z ID] [--json] [--save F]",
+	fs := newFlagSet("tune", "labmatch tune DIR [--pb ID --bo ID --co ID --mu-dead ID --mu-sat ID --mu-under ID --z ID]\n                     [--mode M] [--loss L] [--exclude LIST] [--json] [--save F] [--tuning F] [--force]",
 		"Tune the chosen family of every property (default: the best-ranked) to the report and print\nthe parameters with 95 % intervals and the statistics before and after tuning.\nDIR may be demo:<id> for a built-in report.")
-	fams := familyFlags(fs, fit.Properties...)
+	fams := familyFlags(fs, nil, fit.Properties...)
 	of := addOptionFlags(fs)
 	exclude := fs.String("exclude", "", "leave points out: `list` of property:index, e.g. bo:3,mu_sat:0 (indexes as listed)")
 	asJSON := fs.Bool("json", false, "print JSON")
@@ -207,10 +234,30 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 	if code >= 0 {
 		return code
 	}
+	for p, idx := range opts.Excluded {
+		for _, i := range idx {
+			if i >= len(ds.Points[p]) {
+				return usageError(fs, stderr, "--exclude %s:%d: %s has %s (indexes 0 to %d)", p, i, p, plural(len(ds.Points[p]), "point"), len(ds.Points[p])-1)
+			}
+		}
+	}
+	if *save != "" && !*force {
+		if _, err := os.Stat(*save); err == nil {
+			fmt.Fprintf(stderr, "labmatch: %s exists; use --force to overwrite\n", *save)
+			return exitData
+		}
+	}
 	var results map[fit.PropertyID]fit.Result
 	if *tuning != "" {
-		if len(choice) > 0 || *exclude != "" {
-			return usageError(fs, stderr, "--tuning takes the families, options and excluded points from the file; drop the family flags and --exclude")
+		var clash []string
+		fs.Visit(func(f *flag.Flag) {
+			switch f.Name {
+			case "mode", "loss", "huber-delta", "ppc", "exclude", "pb", "bo", "co", "mu-dead", "mu-sat", "mu-under", "z":
+				clash = append(clash, "--"+f.Name)
+			}
+		})
+		if len(clash) > 0 {
+			return usageError(fs, stderr, "--tuning takes the families, options and excluded points from the file; drop %s", strings.Join(clash, ", "))
 		}
 		tf, err := export.LoadTuning(*tuning)
 		if err != nil {
@@ -242,10 +289,11 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 		props := map[string]tuneJSON{}
 		for p, res := range results {
 			params := map[string]float64{"multiplier": res.Params.Multiplier}
-			if res.Mode == fit.MultiplierShift {
-				params["shift"] = res.Params.Shift
+			shiftUnit := ""
+			if res.Shifted {
+				params["shift"], shiftUnit = res.Params.Shift, res.ShiftUnit
 			}
-			props[string(p)] = tuneJSON{Family: res.Family, Parameters: params, CI95: res.CI95, CIAssumed: res.CIAssumed,
+			props[string(p)] = tuneJSON{Family: res.Family, Parameters: params, ShiftUnit: shiftUnit, CI95: res.CI95, CIAssumed: res.CIAssumed, OutOfRange: nonNil(res.OutOfRange),
 				AAREPublished: res.Published.AARE, AARETuned: res.Tuned.AARE, Published: res.Published, Tuned: res.Tuned,
 				Flags: nonNil(res.Flags), Residuals: res.Residuals}
 		}
@@ -273,34 +321,47 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 
 func printResult(w io.Writer, res fit.Result) {
 	fmt.Fprintf(w, "\n%s: %s\n", propertyTitle(res.Property), res.Family)
-	ci := res.CI95["multiplier"]
-	assumed := ""
-	if res.CIAssumed {
-		assumed = " (assumed lab uncertainty: no spare points)"
-	}
-	fmt.Fprintf(w, "  multiplier %.4f  95%% [%.4f, %.4f]%s\n", res.Params.Multiplier, ci[0], ci[1], assumed)
-	if res.Mode == fit.MultiplierShift {
-		s := res.CI95["shift"]
-		fmt.Fprintf(w, "  shift      %.4g  95%% [%.4g, %.4g]\n", res.Params.Shift, s[0], s[1])
+	fmt.Fprintf(w, "  multiplier %.4f  %s\n", res.Params.Multiplier, interval(res, "multiplier", "%.4f"))
+	if res.Shifted {
+		fmt.Fprintf(w, "  shift      %.4g %s  %s\n", res.Params.Shift, res.ShiftUnit, interval(res, "shift", "%.4g"))
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  \tpoints\tAARE %\tbias %\tmax |RE| %\tRMSE")
+	fmt.Fprintf(tw, "  \tpoints\tAARE %%\tbias %%\tmax |RE| %%\tRMSE [%s]\n", res.Tuned.RMSEUnit)
 	fmt.Fprintf(tw, "  published\t%d\t%.2f\t%+.2f\t%.2f\t%.4g\n", res.Published.Points, res.Published.AARE, res.Published.Bias, res.Published.MaxARE, res.Published.RMSE)
 	fmt.Fprintf(tw, "  tuned\t%d\t%.2f\t%+.2f\t%.2f\t%.4g\n", res.Tuned.Points, res.Tuned.AARE, res.Tuned.Bias, res.Tuned.MaxARE, res.Tuned.RMSE)
 	tw.Flush()
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  #\tquantity\tp [psia]\tlab\tpublished\ttuned\tRE tuned %\t")
+	fmt.Fprintln(tw, "  #\tquantity\tp [psia]\tlab\tpublished\ttuned\tunit\tRE tuned %\t")
 	for i, rr := range res.Residuals {
 		mark := ""
 		if rr.Excluded {
 			mark = "excluded"
 		}
-		fmt.Fprintf(tw, "  %d\t%s\t%.1f\t%.5g\t%.5g\t%.5g\t%+.2f\t%s\n", i, rr.Quantity, rr.Pressure, rr.Lab, rr.Published, rr.Tuned, 100*(rr.Tuned-rr.Lab)/rr.Lab, mark)
+		fmt.Fprintf(tw, "  %d\t%s\t%.1f\t%.5g\t%.5g\t%.5g\t%s\t%+.2f\t%s\n", i, rr.Quantity, rr.Pressure, rr.Lab, rr.Published, rr.Tuned, rr.Unit, 100*(rr.Tuned-rr.Lab)/rr.Lab, mark)
 	}
 	tw.Flush()
 	for _, f := range res.Flags {
 		fmt.Fprintln(w, "  flag:", f)
 	}
+	for _, f := range res.OutOfRange {
+		fmt.Fprintln(w, "  outside the family's data:", f)
+	}
+}
+
+// interval formats a parameter's 95 % interval, or says why there is none.
+func interval(res fit.Result, name, format string) string {
+	ci, ok := res.CI95[name]
+	if !ok {
+		return "95% interval not determined (too few points or a flat objective)"
+	}
+	s := fmt.Sprintf("95%% ["+format+", "+format+"]", ci[0], ci[1])
+	if res.CIAssumed {
+		s += " (from an assumed lab uncertainty: no spare points)"
+	}
+	if name == "multiplier" && (ci[0] < fit.MinMultiplier || ci[1] > fit.MaxMultiplier) {
+		s += fmt.Sprintf(" (reaches past the bounds [%g, %g]: read it as poorly determined)", fit.MinMultiplier, fit.MaxMultiplier)
+	}
+	return s
 }
 
 // parseExclude reads "bo:3,mu_sat:0" into per-property point indexes.

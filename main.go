@@ -41,8 +41,7 @@ func commands() []command {
 		{"rank", "score every correlation family, published and tuned, on a report",
 			"labmatch rank DIR [--json]", runRank},
 		{"tune", "tune the chosen families to a report and print parameters and statistics",
-			"labmatch tune DIR [--pb ID --bo ID --co ID --mu-dead ID --mu-sat ID --mu-under ID --z ID] [--json] [--save F]",
-			runTune},
+			"labmatch tune DIR [--pb ID ...] [--json] [--save F] [--tuning F]", runTune},
 	}
 }
 
@@ -126,12 +125,23 @@ func newFlagSet(name, usageLine, about string) *flag.FlagSet {
 	fs.Usage = func() {
 		w := fs.Output()
 		fmt.Fprintf(w, "Usage: %s\n\n%s\n", usageLine, strings.TrimSpace(about))
-		hasFlags := false
-		fs.VisitAll(func(*flag.Flag) { hasFlags = true })
-		if hasFlags {
-			fmt.Fprintln(w, "\nFlags:")
-			fs.PrintDefaults()
-		}
+		first := true
+		fs.VisitAll(func(f *flag.Flag) {
+			if first {
+				fmt.Fprintln(w, "\nFlags:")
+				first = false
+			}
+			name, use := flag.UnquoteUsage(f)
+			fmt.Fprintf(w, "  --%s", f.Name)
+			if name != "" {
+				fmt.Fprintf(w, " %s", name)
+			}
+			fmt.Fprintf(w, "\n        %s", use)
+			if f.DefValue != "" && f.DefValue != "false" && f.DefValue != "0" {
+				fmt.Fprintf(w, " (default %s)", f.DefValue)
+			}
+			fmt.Fprintln(w)
+		})
 	}
 	return fs
 }

@@ -4,7 +4,9 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"math"
 	"os"
+	"slices"
 	"sort"
 
 	"labmatch/fit"
@@ -40,16 +42,19 @@ type TuningOptions struct {
 type PropertyTuning struct {
 	Family     string                `json:"family"`
 	Parameters fit.Params            `json:"parameters"`
+	ShiftUnit  string                `json:"shift_unit"`
 	CI95       map[string][2]float64 `json:"ci95,omitempty"`
 	CIAssumed  bool                  `json:"ci95_assumed_uncertainty,omitempty"`
 	Published  fit.Stats             `json:"published"`
 	Tuned      fit.Stats             `json:"tuned"`
 	Excluded   []int                 `json:"excluded_points"`
 	Flags      []string              `json:"flags,omitempty"`
+	OutOfRange []string              `json:"out_of_range,omitempty"`
 }
 
 // NewTuningFile records tuning results for a report.
 func NewTuningFile(tool string, r *lab.Report, results map[fit.PropertyID]fit.Result, opts fit.Options, notes []string) TuningFile {
+	opts = opts.Resolved()
 	tf := TuningFile{FormatVersion: FormatVersion, Tool: tool, Report: r.Fluid.Sample, Fingerprint: r.Fingerprint,
 		Options:    TuningOptions{Mode: string(opts.Mode), Loss: string(opts.Loss), HuberDelta: opts.HuberDelta, PseudoCritical: opts.PseudoCritical},
 		Properties: map[string]PropertyTuning{}, Notes: notes}
@@ -58,8 +63,8 @@ func NewTuningFile(tool string, r *lab.Report, results map[fit.PropertyID]fit.Re
 		if ex == nil {
 			ex = []int{}
 		}
-		tf.Properties[string(p)] = PropertyTuning{Family: res.Family, Parameters: res.Params, CI95: res.CI95,
-			CIAssumed: res.CIAssumed, Published: res.Published, Tuned: res.Tuned, Excluded: ex, Flags: res.Flags}
+		tf.Properties[string(p)] = PropertyTuning{Family: res.Family, Parameters: res.Params, ShiftUnit: res.ShiftUnit, CI95: res.CI95,
+			CIAssumed: res.CIAssumed, Published: res.Published, Tuned: res.Tuned, Excluded: ex, Flags: res.Flags, OutOfRange: res.OutOfRange}
 	}
 	return tf
 }
@@ -80,8 +85,8 @@ func (tf TuningFile) FitOptions() fit.Options {
 func (tf TuningFile) Results() map[fit.PropertyID]fit.Result {
 	out := map[fit.PropertyID]fit.Result{}
 	for p, pt := range tf.Properties {
-		out[fit.PropertyID(p)] = fit.Result{Property: fit.PropertyID(p), Family: pt.Family, Params: pt.Parameters,
-			CI95: pt.CI95, Published: pt.Published, Tuned: pt.Tuned, Excluded: pt.Excluded, Flags: pt.Flags}
+		out[fit.PropertyID(p)] = fit.Result{Property: fit.PropertyID(p), Family: pt.Family, Params: pt.Parameters, ShiftUnit: pt.ShiftUnit,
+			CI95: pt.CI95, Published: pt.Published, Tuned: pt.Tuned, Excluded: pt.Excluded, Flags: pt.Flags, OutOfRange: pt.OutOfRange}
 	}
 	return out
 }
@@ -116,6 +121,32 @@ func LoadTuning(path string) (TuningFile, error) {
 	if tf.FormatVersion != FormatVersion {
 		return TuningFile{}, fmt.Errorf("export: %s: format version %d, this labmatch reads %d", path, tf.FormatVersion, FormatVersion)
 	}
+	if err := tf.validate(); err != nil {
+		return TuningFile{}, fmt.Errorf("export: %s: %w", path, err)
+	}
+	return tf, nil
+}
+
+// validate checks what a hand-edited or damaged tuning file could get wrong.
+func (tf TuningFile) validate() error {
+	switch fit.Mode(tf.Options.Mode) {
+	case "", fit.Multiplier, fit.MultiplierShift:
+	default:
+		return fmt.Errorf("options: mode %q, want %q or %q", tf.Options.Mode, fit.Multiplier, fit.MultiplierShift)
+	}
+	switch fit.Loss(tf.Options.Loss) {
+	case "", fit.Relative, fit.Absolute, fit.Huber:
+	default:
+		return fmt.Errorf("options: loss %q, want relative, absolute or huber", tf.Options.Loss)
+	}
+	if tf.Options.HuberDelta < 0 || tf.Options.HuberDelta >= 1 {
+		return fmt.Errorf("options: huber_delta %g, want 0 (default) to 1", tf.Options.HuberDelta)
+	}
+	switch tf.Options.PseudoCritical {
+	case "", "sutton", "standing":
+	default:
+		return fmt.Errorf("options: pseudo_critical %q, want sutton or standing", tf.Options.PseudoCritical)
+	}
 	keys := make([]string, 0, len(tf.Properties))
 	for p := range tf.Properties {
 		keys = append(keys, p)
@@ -123,16 +154,23 @@ func LoadTuning(path string) (TuningFile, error) {
 	sort.Strings(keys)
 	for _, p := range keys {
 		pt := tf.Properties[p]
-		known := false
-		for _, id := range fit.Families(fit.PropertyID(p)) {
-			known = known || id == pt.Family
+		fams := fit.Families(fit.PropertyID(p))
+		if len(fams) == 0 {
+			return fmt.Errorf("unknown property %q", p)
 		}
-		if !known {
-			return TuningFile{}, fmt.Errorf("export: %s: property %q: unknown family %q", path, p, pt.Family)
+		if !slices.Contains(fams, pt.Family) {
+			return fmt.Errorf("property %q: unknown family %q (known: %v)", p, pt.Family, fams)
 		}
-		if !(pt.Parameters.Multiplier >= fit.MinMultiplier && pt.Parameters.Multiplier <= fit.MaxMultiplier) {
-			return TuningFile{}, fmt.Errorf("export: %s: property %q: multiplier %g outside [%g, %g]", path, p, pt.Parameters.Multiplier, fit.MinMultiplier, fit.MaxMultiplier)
+		m := pt.Parameters.Multiplier
+		if !(m >= fit.MinMultiplier && m <= fit.MaxMultiplier) {
+			return fmt.Errorf("property %q: multiplier %g outside [%g, %g]", p, m, fit.MinMultiplier, fit.MaxMultiplier)
+		}
+		if math.IsNaN(pt.Parameters.Shift) || math.IsInf(pt.Parameters.Shift, 0) {
+			return fmt.Errorf("property %q: shift %g is not a number", p, pt.Parameters.Shift)
+		}
+		if fit.Mode(tf.Options.Mode) != fit.MultiplierShift && pt.Parameters.Shift != 0 {
+			return fmt.Errorf("property %q: shift %g in mode %q, which has no shift", p, pt.Parameters.Shift, tf.Options.Mode)
 		}
 	}
-	return tf, nil
+	return nil
 }

@@ -4,7 +4,9 @@ import (
 	"errors"
 	"io/fs"
 	"math"
+	"os"
 	"path/filepath"
+	"strings"
 	"testing"
 
 	"labmatch/fit"
@@ -94,4 +96,37 @@ func choiceOf(tf TuningFile) fit.Choice {
 		c[fit.PropertyID(p)] = pt.Family
 	}
 	return c
+}
+
+// A damaged or hand-edited tuning file is refused with a reason.
+func TestLoadTuningRefusesBadFiles(t *testing.T) {
+	good := `{"format_version": 1, "options": {"mode": "multiplier", "loss": "relative"},
+	 "properties": {"bo": {"family": "standing", "parameters": {"multiplier": 0.96, "shift": 0}}}}`
+	cases := map[string]string{
+		"bad mode":         strings.Replace(good, `"mode": "multiplier"`, `"mode": "bogus"`, 1),
+		"shift in mult":    strings.Replace(good, `"shift": 0`, `"shift": 0.5`, 1),
+		"unknown family":   strings.Replace(good, `"standing"`, `"nobody-1999"`, 1),
+		"unknown property": strings.Replace(good, `"bo":`, `"bq":`, 1),
+		"multiplier bound": strings.Replace(good, `0.96`, `3`, 1),
+		"version":          strings.Replace(good, `"format_version": 1`, `"format_version": 9`, 1),
+		"not json":         `{"format_version": 1,`,
+		"bad loss":         strings.Replace(good, `"relative"`, `"cubic"`, 1),
+	}
+	dir := t.TempDir()
+	ok := filepath.Join(dir, "good.json")
+	if err := os.WriteFile(ok, []byte(good), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if _, err := LoadTuning(ok); err != nil {
+		t.Fatalf("good file refused: %v", err)
+	}
+	for name, text := range cases {
+		p := filepath.Join(dir, strings.ReplaceAll(name, " ", "-")+".json")
+		if err := os.WriteFile(p, []byte(text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		if _, err := LoadTuning(p); err == nil {
+			t.Errorf("%s: loaded, want an error", name)
+		}
+	}
 }

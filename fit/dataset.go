@@ -22,6 +22,7 @@ type Dataset struct {
 	Bob         float64 // rb/STB, separator basis (Bofb)
 	MuDeadLab   float64 // cP, measured dead-oil viscosity at reservoir temperature; 0 if none
 	MuBLab      float64 // cP, measured oil viscosity at Pb; 0 if none
+	CCEPsat     float64 // psia, the pressure at which the CCE's V/Vsat = 1 (Pb when absent)
 	H2S, CO2    float64 // mole fractions in the gas
 	StdPressure float64 // psia
 	StdTemp     float64 // °F
@@ -91,14 +92,28 @@ func NewDataset(r *lab.Report) (*Dataset, error) {
 	for _, p := range basis.Below {
 		ds.add(Bo, Point{Quantity: "Bo", Unit: "rb/STB", Pressure: p.Pressure, Lab: p.Bo, Rs: p.Rs, Source: p.Source, Line: p.Line})
 	}
-	// co: average compressibility from Pb to p from the CCE relative volumes.
-	for _, p := range basis.Above {
-		rv := p.Bo / ds.Bob
-		if rv >= 1 || p.Pressure <= ds.Pb {
+	// co: average compressibility from the CCE's saturation pressure to p. The relative
+	// volumes are V/Vsat at the CCE's own Psat, which may differ a little from fluid.csv's.
+	ds.CCEPsat = ds.Pb
+	for _, c := range r.CCE {
+		if math.Abs(c.RelVolume-1) < 1e-9 {
+			ds.CCEPsat = c.Pressure
+		}
+	}
+	dropped := 0
+	for _, c := range r.CCE {
+		if c.Pressure <= ds.CCEPsat {
 			continue
 		}
-		co := -math.Log(rv) / (p.Pressure - ds.Pb)
-		ds.add(Co, Point{Quantity: "co", Unit: "1/psi", Pressure: p.Pressure, Lab: co, Rs: ds.Rsb, Source: p.Source, Line: p.Line})
+		if !(c.RelVolume > 0 && c.RelVolume < 1) {
+			dropped++
+			continue
+		}
+		co := -math.Log(c.RelVolume) / (c.Pressure - ds.CCEPsat)
+		ds.add(Co, Point{Quantity: "co avg", Unit: "1/psi", Pressure: c.Pressure, Lab: co, Rs: ds.Rsb, Source: "cce.csv", Line: c.Line})
+	}
+	if dropped > 0 {
+		ds.Notes = append(ds.Notes, fmt.Sprintf("co: %d CCE point(s) above Psat with V/Vsat ≥ 1 left out (the oil must shrink as pressure rises)", dropped))
 	}
 	// viscosities.
 	for _, v := range r.Viscosity {

@@ -171,12 +171,12 @@ func (m *Model) At(p float64) (State, error) {
 		if err != nil || rv <= 0 {
 			return s, fmt.Errorf("fit: model: relative volume at %g psia: %v", p, err)
 		}
-		s.Bo = m.Bob * math.Exp(qc.Multiplier*math.Log(rv)-qc.Shift*coShiftUnit*(p-m.Pb))
+		s.Bo = m.Bob * math.Exp(qc.Multiplier*math.Log(rv)-qc.Shift*(p-m.Pb))
 		co, err := m.co.Co(p, m.Pb, m.Rsb, m.Oil)
 		if err != nil {
 			return s, fmt.Errorf("fit: model: co at %g psia: %w", p, err)
 		}
-		s.Co = qc.Multiplier*co + qc.Shift*coShiftUnit
+		s.Co = qc.Multiplier*co + qc.Shift
 		mu, err := m.under.Viscosity(p, m.Pb, m.MuB, m.Oil)
 		if err != nil {
 			return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)

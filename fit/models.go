@@ -16,12 +16,11 @@ type nonlinear interface {
 	predict(q Params, pts []Point, out []float64) error
 }
 
-// affine is a model whose prediction is a + m·b + s·shiftUnit at every point, with a and b
-// from the published correlation. The tuner evaluates the correlation once and then only
-// does the arithmetic.
+// affine is a model whose prediction is a + m·b + s at every point, with a and b from the
+// published correlation. The tuner evaluates the correlation once and then only does the
+// arithmetic.
 type affine interface {
 	basis(pts []Point, a, b []float64) error
-	shiftUnit() float64
 }
 
 // newModel builds the model of one family of one property for a dataset. muDead and muB
@@ -36,7 +35,7 @@ func newModel(ds *Dataset, p PropertyID, family string, opts Options, muDead, mu
 		return boModel{f, ds.Oil}, err
 	case Co:
 		f, err := correlations.CompressibilityByID(family)
-		return coModel{f, ds.Oil, ds.Pb, ds.Rsb}, err
+		return coModel{f, ds.Oil, ds.CCEPsat, ds.Rsb}, err
 	case MuDead:
 		f, err := correlations.DeadViscosityByID(family)
 		return muDeadModel{f, ds.Oil}, err
@@ -104,13 +103,9 @@ func (m boModel) basis(pts []Point, a, b []float64) error {
 	return nil
 }
 
-func (boModel) shiftUnit() float64 { return 1 }
-
-// coShiftUnit is the unit of the co shift parameter (1/psi): the shift is given in microsips.
-const coShiftUnit = 1e-6
-
-// coModel predicts the average compressibility from Pb to p, −ln(Bo(p)/Bob)/(p − Pb);
-// tuned: m·co_avg + s·1e-6 (equivalent to co_tuned(p) = m·co(p) + s·1e-6 pointwise).
+// coModel predicts the average compressibility from the CCE's saturation pressure to p,
+// −ln(V/Vsat)/(p − Psat); tuned: m·co_avg + s (s in 1/psi), equivalent to
+// co_tuned(p) = m·co(p) + s pointwise.
 type coModel struct {
 	f       correlations.CompressibilityFamily
 	oil     correlations.Oil
@@ -131,8 +126,6 @@ func (m coModel) basis(pts []Point, a, b []float64) error {
 	return nil
 }
 
-func (coModel) shiftUnit() float64 { return coShiftUnit }
-
 // muDeadModel: μod_tuned = m·μod + s.
 type muDeadModel struct {
 	f   correlations.DeadViscosityFamily
@@ -149,8 +142,6 @@ func (m muDeadModel) basis(pts []Point, a, b []float64) error {
 	}
 	return nil
 }
-
-func (muDeadModel) shiftUnit() float64 { return 1 }
 
 // muSatModel: μ_tuned = m·μ(μod, Rs) + s, with μod the measured (or tuned) dead-oil viscosity.
 type muSatModel struct {
@@ -169,8 +160,6 @@ func (m muSatModel) basis(pts []Point, a, b []float64) error {
 	}
 	return nil
 }
-
-func (muSatModel) shiftUnit() float64 { return 1 }
 
 // muUnderModel: μ_tuned = μb + m·(μ(p) − μ(Pb)) + s: a multiplier on the increase above Pb,
 // so that μ stays continuous at Pb.
@@ -197,8 +186,6 @@ func (m muUnderModel) basis(pts []Point, a, b []float64) error {
 	return nil
 }
 
-func (muUnderModel) shiftUnit() float64 { return 1 }
-
 // zModel: Z_tuned = m·Z(Tpr, Ppr) + s, pseudo-criticals from the gas gravity of each point
 // with the Wichert–Aziz correction when the gas is sour.
 type zModel struct {
@@ -218,8 +205,6 @@ func (m zModel) basis(pts []Point, a, b []float64) error {
 	}
 	return nil
 }
-
-func (zModel) shiftUnit() float64 { return 1 }
 
 func (m zModel) z(p, gg float64) (float64, error) {
 	ppc, tpc, err := m.pc.Critical(gg)

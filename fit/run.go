@@ -110,26 +110,30 @@ func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, s
 	res.CIAssumed = assumed
 	if half != nil {
 		res.CI95 = map[string][2]float64{"multiplier": {q.Multiplier - half[0], q.Multiplier + half[0]}}
-		if len(half) > 1 {
+		switch {
+		case len(half) > 1:
 			res.CI95["shift"] = [2]float64{q.Shift - half[1], q.Shift + half[1]}
+		case pr.anchored: // s = Pb − m·Pb_published: its interval follows from m's
+			hs := half[0] * pr.pbPub
+			res.CI95["shift"] = [2]float64{q.Shift - hs, q.Shift + hs}
 		}
 	}
-	res.Flags = flags(ds, prop, family, q)
+	res.ShiftUnit, res.Shifted = shiftUnit(prop, pr.pts), pr.shift || pr.anchored
+	res.Flags = append(append([]string(nil), pr.notes...), multiplierFlags(q)...)
+	if e, err := correlations.Lookup(catalogProperty(prop), family); err == nil {
+		res.OutOfRange = e.Check(ds.rangeInputs())
+	}
 	return res, nil
 }
 
-// flags lists the warnings of a tuned family: a multiplier far from 1 or at its bound, and
-// inputs outside the family's original data.
-func flags(ds *Dataset, prop PropertyID, family string, q Params) []string {
+// multiplierFlags warns of a multiplier far from 1 or at its bound.
+func multiplierFlags(q Params) []string {
 	var fl []string
 	switch {
 	case q.Multiplier <= MinMultiplier*1.001 || q.Multiplier >= MaxMultiplier*0.999:
 		fl = append(fl, fmt.Sprintf("multiplier %.3f is at its bound [%g, %g]: this family cannot describe the oil", q.Multiplier, MinMultiplier, MaxMultiplier))
 	case q.Multiplier < FlagLowMult || q.Multiplier > FlagHighMult:
 		fl = append(fl, fmt.Sprintf("multiplier %.3f is outside [%g, %g]: the family describes this oil poorly", q.Multiplier, FlagLowMult, FlagHighMult))
-	}
-	if e, err := correlations.Lookup(catalogProperty(prop), family); err == nil {
-		fl = append(fl, e.Check(ds.rangeInputs())...)
 	}
 	return fl
 }
@@ -172,7 +176,11 @@ func runAll(ds *Dataset, choice Choice, fixed map[PropertyID]Params, opts Option
 			}
 			best, ok := rk.Best(p)
 			if !ok {
-				continue
+				reason := "no family"
+				if es := rk[p]; len(es) > 0 {
+					reason = es[0].Failed
+				}
+				return out, fmt.Errorf("fit: %s: no family can be evaluated for this report: %s", p, reason)
 			}
 			fam = best
 		}
@@ -197,19 +205,22 @@ func runAll(ds *Dataset, choice Choice, fixed map[PropertyID]Params, opts Option
 }
 
 // RankEntry is one family's score on one property.
+// The numbers are nil (null in JSON) for a family that could not be scored.
 type RankEntry struct {
 	Family        string   `json:"family"`
-	AAREPublished float64  `json:"aare_pct_published"`
-	AARETuned     float64  `json:"aare_pct_tuned"`
-	Multiplier    float64  `json:"multiplier"`
+	AAREPublished *float64 `json:"aare_pct_published"`
+	AARETuned     *float64 `json:"aare_pct_tuned"`
+	Multiplier    *float64 `json:"multiplier"`
+	Shift         *float64 `json:"shift,omitempty"` // multiplier+shift mode only
 	InRange       bool     `json:"in_range"`
 	Points        int      `json:"points"`
 	Failed        string   `json:"failed,omitempty"` // why the family could not be scored
 	OutOfRange    []string `json:"out_of_range,omitempty"`
+	Flags         []string `json:"flags,omitempty"` // multiplier far from 1 or at its bound, …
 }
 
-// aareTie is the difference in AARE (percent points) below which two families tie.
-const aareTie = 1e-6
+// aareTie is the step (percentage points of AARE) in which tuned errors are compared.
+const aareTie = 0.01
 
 // Ranking lists, per property, every family in rank order.
 type Ranking map[PropertyID][]RankEntry
@@ -232,7 +243,10 @@ type rankJob struct {
 
 // Rank scores every family of every property with data, as published and as tuned, on all
 // cores. Families that cannot be evaluated rank last with the reason. The order is tuned
-// AARE, then published AARE, then id, so it is deterministic.
+// AARE (to aareTie), then published AARE, then id, so it is deterministic. The live-oil
+// viscosity families are scored with the measured dead-oil viscosity and viscosity at Pb
+// (published fallbacks when the report has none), not with the tuned ones that TuneAll
+// chains, so that each family is judged on its own.
 func Rank(ds *Dataset, opts Options) Ranking { return rank(ds, opts, Families) }
 
 func rank(ds *Dataset, opts Options, families func(PropertyID) []string) Ranking {
@@ -279,28 +293,37 @@ func rankLess(a, b RankEntry) bool {
 	if (a.Failed == "") != (b.Failed == "") {
 		return a.Failed == ""
 	}
-	// Tuned errors closer than aareTie are a tie (a property with as many points as
-	// parameters fits exactly with every family; round-off must not pick the winner).
-	if math.Abs(a.AARETuned-b.AARETuned) > aareTie {
-		return a.AARETuned < b.AARETuned
-	}
-	if a.AAREPublished != b.AAREPublished {
-		return a.AAREPublished < b.AAREPublished
+	if a.Failed == "" {
+		// Tuned errors are compared in steps of aareTie, so that families that all fit
+		// exactly (as many points as parameters) tie, and round-off cannot pick the winner.
+		ta, tb := math.Round(*a.AARETuned/aareTie), math.Round(*b.AARETuned/aareTie)
+		if ta != tb {
+			return ta < tb
+		}
+		if *a.AAREPublished != *b.AAREPublished {
+			return *a.AAREPublished < *b.AAREPublished
+		}
 	}
 	return a.Family < b.Family
 }
 
 func score(ds *Dataset, p PropertyID, family string, opts Options) RankEntry {
-	e := RankEntry{Family: family, Points: len(ds.Points[p]) - len(opts.Excluded[p])}
-	if ce, err := correlations.Lookup(catalogProperty(p), family); err == nil {
-		e.OutOfRange = ce.Check(ds.rangeInputs())
-	}
-	e.InRange = len(e.OutOfRange) == 0
+	e := RankEntry{Family: family, InRange: true}
 	r, err := Tune(ds, p, family, opts)
 	if err != nil {
 		e.Failed = err.Error()
+		if ce, err := correlations.Lookup(catalogProperty(p), family); err == nil {
+			e.OutOfRange = ce.Check(ds.rangeInputs())
+			e.InRange = len(e.OutOfRange) == 0
+		}
 		return e
 	}
-	e.AAREPublished, e.AARETuned, e.Multiplier = r.Published.AARE, r.Tuned.AARE, r.Params.Multiplier
+	e.OutOfRange, e.InRange = r.OutOfRange, len(r.OutOfRange) == 0
+	e.Points = r.Tuned.Points
+	e.AAREPublished, e.AARETuned, e.Multiplier = &r.Published.AARE, &r.Tuned.AARE, &r.Params.Multiplier
+	if r.Mode == MultiplierShift {
+		e.Shift = &r.Params.Shift
+	}
+	e.Flags = r.Flags
 	return e
 }

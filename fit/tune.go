@@ -25,8 +25,8 @@ const (
 
 // assumedRelSigma is the relative measurement uncertainty used for a parameter interval when a
 // property has no more points than parameters (no residual degrees of freedom). Typical lab
-// repeatability (common practice): about 1 % for FVF, Pb and Rs, 2 % for viscosity and Z,
-// 5 % for compressibility.
+// repeatability (common practice): 1 % for Pb and Rs, 0.5 % for FVF, 2 % for viscosity,
+// 1 % for Z, 5 % for compressibility.
 var assumedRelSigma = map[PropertyID]float64{
 	Pb: 0.01, Bo: 0.005, Co: 0.05, MuDead: 0.02, MuSat: 0.02, MuUnder: 0.02, Z: 0.01,
 }
@@ -49,18 +49,21 @@ type Residual struct {
 
 // Result is the outcome of tuning one family to one property.
 type Result struct {
-	Property  PropertyID
-	Family    string
-	Mode      Mode
-	Params    Params
-	CI95      map[string][2]float64 // per parameter name ("multiplier", "shift")
-	CIAssumed bool                  // the interval rests on an assumed lab uncertainty (no degrees of freedom)
-	Published Stats
-	Tuned     Stats
-	Residuals []Residual
-	Excluded  []int
-	Flags     []string // multiplier far from 1, family outside its data range, …
-	Evals     int      // objective evaluations
+	Property   PropertyID
+	Family     string
+	Mode       Mode
+	Params     Params
+	Shifted    bool                  // a shift was tuned (free, or fixed by Pb for pb); false: multiplier only
+	ShiftUnit  string                // unit of Params.Shift (the property's, psia for pb)
+	CI95       map[string][2]float64 // per parameter name ("multiplier", "shift"); nil when not determined
+	CIAssumed  bool                  // the interval rests on an assumed lab uncertainty (no degrees of freedom)
+	Published  Stats
+	Tuned      Stats
+	Residuals  []Residual
+	Excluded   []int
+	Flags      []string // multiplier far from 1 or at its bound, parameters left out, …
+	OutOfRange []string // inputs outside the family's original data
+	Evals      int      // objective evaluations
 }
 
 // problem is one property, one family, its points and the scratch space of the objective.
@@ -72,14 +75,19 @@ type problem struct {
 	w        []float64
 	loss     Loss
 	delta    float64
-	shift    bool
+	shift    bool // the shift is a free parameter
 	shiftMax float64
 	pred     []float64
+	notes    []string // what newProblem changed, for the result's flags
 
-	// For affine models: prediction = a + m·b + s·unit, a and b evaluated once.
+	// anchored (pb in multiplier+shift mode): the shift is fixed by Pb_tuned(Rsb) = Pb,
+	// s = pbLab − m·pbPub, so the tuned pair honours the report's bubble point exactly.
+	anchored     bool
+	pbLab, pbPub float64
+
+	// For affine models: prediction = a + m·b + s, a and b evaluated once.
 	isAffine bool
 	a, b     []float64
-	unit     float64
 	basisErr error
 }
 
@@ -91,9 +99,8 @@ func (pr *problem) predict(q Params, out []float64) error {
 	if pr.basisErr != nil {
 		return pr.basisErr
 	}
-	s := q.Shift * pr.unit
 	for i := range out {
-		out[i] = pr.a[i] + q.Multiplier*pr.b[i] + s
+		out[i] = pr.a[i] + q.Multiplier*pr.b[i] + q.Shift
 	}
 	return nil
 }
@@ -137,7 +144,7 @@ func newProblem(ds *Dataset, prop PropertyID, m model, opts Options) (*problem, 
 	}
 	switch m := m.(type) {
 	case affine:
-		pr.isAffine, pr.unit = true, m.shiftUnit()
+		pr.isAffine = true
 		pr.a, pr.b = make([]float64, len(pts)), make([]float64, len(pts))
 		pr.basisErr = m.basis(pts, pr.a, pr.b)
 	case nonlinear:
@@ -157,16 +164,52 @@ func newProblem(ds *Dataset, prop PropertyID, m model, opts Options) (*problem, 
 		return nil, fmt.Errorf("fit: %s: every point is excluded", prop)
 	}
 	pr.shiftMax = 0.25 * mean / float64(n)
-	if prop == Co {
-		pr.shiftMax /= coShiftUnit
+	if pr.shift {
+		switch {
+		case prop == Pb:
+			pr.shift = false
+			if err := pr.anchor(); err != nil {
+				return nil, err
+			}
+		case prop == MuUnder:
+			pr.shift = false
+			pr.notes = append(pr.notes, "no shift for mu_under: it would break the viscosity's continuity at Pb")
+		case n <= 2:
+			pr.shift = false
+			pr.notes = append(pr.notes, fmt.Sprintf("no shift: %d point(s) cannot determine two parameters", n))
+		}
 	}
 	return pr, nil
+}
+
+// anchor fixes the pb shift by the report's bubble point (see problem.anchored).
+func (pr *problem) anchor() error {
+	pm, ok := pr.nl.(pbModel)
+	if !ok {
+		return fmt.Errorf("fit: pb: unexpected model %T", pr.nl)
+	}
+	for i, pt := range pr.pts {
+		if pt.Quantity != "Pb" || !pr.use[i] {
+			continue
+		}
+		v, err := pm.f.BubblePoint(pt.Rs, pm.oil)
+		if err != nil {
+			return fmt.Errorf("fit: pb: the published correlation cannot be evaluated: %w", err)
+		}
+		pr.anchored, pr.pbLab, pr.pbPub = true, pt.Lab, v
+		return nil
+	}
+	pr.notes = append(pr.notes, "no shift: the report's Pb is excluded, so nothing anchors it")
+	return nil
 }
 
 // params maps optimiser coordinates to bounded natural parameters.
 func (pr *problem) params(x []float64) Params {
 	q := Params{Multiplier: math.Pow(2, math.Tanh(x[0]))}
-	if pr.shift && len(x) > 1 {
+	switch {
+	case pr.anchored:
+		q.Shift = pr.pbLab - q.Multiplier*pr.pbPub
+	case pr.shift && len(x) > 1:
 		q.Shift = pr.shiftMax * math.Tanh(x[1])
 	}
 	return q
@@ -220,8 +263,9 @@ func (pr *problem) stats(q Params, vals []float64) (Stats, error) {
 	if err := pr.predict(q, vals); err != nil {
 		return Stats{}, err
 	}
-	var st Stats
+	st := Stats{RMSEUnit: rmseUnit(pr.prop, pr.pts)}
 	var sq float64
+	nsq := 0
 	for i, v := range vals {
 		if !pr.use[i] || pr.w[i] == 0 {
 			continue
@@ -235,14 +279,39 @@ func (pr *problem) stats(q Params, vals []float64) (Stats, error) {
 		st.AARE += math.Abs(re)
 		st.Bias += re
 		st.MaxARE = math.Max(st.MaxARE, math.Abs(re))
-		sq += (v - lab) * (v - lab)
+		if pr.pts[i].Unit == st.RMSEUnit {
+			sq += (v - lab) * (v - lab)
+			nsq++
+		}
 	}
 	if st.Points > 0 {
 		st.AARE /= float64(st.Points)
 		st.Bias /= float64(st.Points)
-		st.RMSE = math.Sqrt(sq / float64(st.Points))
+	}
+	if nsq > 0 {
+		st.RMSE = math.Sqrt(sq / float64(nsq))
 	}
 	return st, nil
+}
+
+// rmseUnit is the unit RMSE is given in: the property's main quantity (Rs for pb, whose
+// points mix Pb in psia and Rs in scf/STB).
+func rmseUnit(prop PropertyID, pts []Point) string {
+	if prop == Pb {
+		return "scf/STB"
+	}
+	if len(pts) > 0 {
+		return pts[0].Unit
+	}
+	return ""
+}
+
+// shiftUnit is the unit of a property's shift parameter.
+func shiftUnit(prop PropertyID, pts []Point) string {
+	if prop == Pb {
+		return "psia"
+	}
+	return rmseUnit(prop, pts)
 }
 
 // minimize runs Nelder–Mead from the published parameters and returns the optimum.

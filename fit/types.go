@@ -116,11 +116,12 @@ var Published = Params{Multiplier: 1}
 
 // Stats are error statistics over the points used.
 type Stats struct {
-	Points int     `json:"points"`
-	AARE   float64 `json:"aare_pct"`    // average absolute relative error, %
-	Bias   float64 `json:"bias_pct"`    // average relative error (ARE), %
-	MaxARE float64 `json:"max_are_pct"` // largest absolute relative error, %
-	RMSE   float64 `json:"rmse"`        // root-mean-square error in the property's unit
+	Points   int     `json:"points"`
+	AARE     float64 `json:"aare_pct"`    // average absolute relative error, %
+	Bias     float64 `json:"bias_pct"`    // average relative error (ARE), %
+	MaxARE   float64 `json:"max_are_pct"` // largest absolute relative error, %
+	RMSE     float64 `json:"rmse"`        // root-mean-square error, in RMSEUnit
+	RMSEUnit string  `json:"rmse_unit"`   // unit of RMSE (for pb: the Rs points, scf/STB)
 }
 
 // Point is one lab value that a property is fitted to, with the context the correlation needs.

@@ -1,6 +1,10 @@
 package lab
 
 import (
+	"errors"
+	"io/fs"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -22,5 +26,33 @@ func TestNumberHints(t *testing.T) {
 		if c.hint == "" && pe.Hint != "" || !strings.Contains(pe.Hint, c.hint) {
 			t.Errorf("%q: hint %q, want %q", c.cell, pe.Hint, c.hint)
 		}
+	}
+}
+
+// Written files are readable by others (0644) and an existing file is never replaced
+// without force.
+func TestWriteFileAtomic(t *testing.T) {
+	p := filepath.Join(t.TempDir(), "out.json")
+	if err := WriteFileAtomic(p, []byte("one"), false); err != nil {
+		t.Fatal(err)
+	}
+	if st, err := os.Stat(p); err != nil || st.Mode().Perm() != 0o644 {
+		t.Errorf("mode %v (%v), want 0644", st.Mode().Perm(), err)
+	}
+	if err := WriteFileAtomic(p, []byte("two"), false); !errors.Is(err, fs.ErrExist) {
+		t.Errorf("second write without force: %v, want fs.ErrExist", err)
+	}
+	if b, _ := os.ReadFile(p); string(b) != "one" {
+		t.Errorf("file changed to %q", b)
+	}
+	if err := WriteFileAtomic(p, []byte("three"), true); err != nil {
+		t.Fatal(err)
+	}
+	if b, _ := os.ReadFile(p); string(b) != "three" {
+		t.Errorf("forced write gave %q", b)
+	}
+	ents, _ := os.ReadDir(filepath.Dir(p))
+	if len(ents) != 1 {
+		t.Errorf("temporary files left behind: %v", ents)
 	}
 }

@@ -117,7 +117,7 @@ func WriteFolder(dir string, r *Report, opts WriteOptions) error {
 		for _, name := range all {
 			p := filepath.Join(dir, name)
 			if _, err := os.Lstat(p); err == nil {
-				return fmt.Errorf("lab: %s exists; set Force (--force) to overwrite: %w", p, fs.ErrExist)
+				return fmt.Errorf("lab: %s exists; use --force to overwrite: %w", p, fs.ErrExist)
 			}
 		}
 	}
