@@ -20,7 +20,7 @@ const (
 	fdStep         = 1e-6 // relative step of the finite-difference Jacobian
 	nmMaxEvals     = 2000
 	nmFuncTol      = 1e-12
-	nmConvergeIter = 5
+	nmConvergeIter = 8 // major iterations without a better vertex; 5 stopped 1-D contractions at 1e-4
 )
 
 // assumedRelSigma is the relative measurement uncertainty used for a parameter interval when a
