@@ -35,8 +35,9 @@ func ksGasGravity(o Oil) (float64, error) {
 	return g, nil
 }
 
-// ksRsFactor returns K in Rs = K·p^(1/C4): K = C1 · γg100^C2 · 10^(C3·API/(T + 460)).
-func ksRsFactor(o Oil) (k float64, c4 float64, err error) {
+// ksLogRsFactor returns ln K in Rs = K·p^(1/C4): K = C1 · γg100^C2 · 10^(C3·API/(T + 460)).
+// Working with ln K saves an exponential and a logarithm on the hot path.
+func ksLogRsFactor(o Oil) (lnK float64, c4 float64, err error) {
 	g, err := ksGasGravity(o)
 	if err != nil {
 		return 0, 0, err
@@ -45,8 +46,7 @@ func ksRsFactor(o Oil) (k float64, c4 float64, err error) {
 	if o.API <= 30 {
 		c = &ksHeavy
 	}
-	// One exponential for γg100^C2 · 10^(C3·API/(T + 460)).
-	return c.c1 * math.Exp(c.c2*math.Log(g)+math.Ln10*c.c3*o.API/(o.Temperature+460)), c.c4, nil
+	return math.Log(c.c1) + c.c2*math.Log(g) + math.Ln10*c.c3*o.API/(o.Temperature+460), c.c4, nil
 }
 
 // KartoatmodjoSchmidtSolutionGOR returns the solution GOR (scf/STB) at p psia, Kartoatmodjo
@@ -63,11 +63,11 @@ func KartoatmodjoSchmidtSolutionGOR(p float64, o Oil) (float64, error) {
 	if err := checkPressure("p", p); err != nil {
 		return 0, err
 	}
-	k, c4, err := ksRsFactor(o)
+	lnK, c4, err := ksLogRsFactor(o)
 	if err != nil {
 		return 0, err
 	}
-	return finite(k * pow(p, 1/c4))
+	return finite(math.Exp(lnK + math.Log(p)/c4))
 }
 
 // KartoatmodjoSchmidtBubblePoint returns the bubble-point pressure (psia), the closed-form
@@ -79,11 +79,11 @@ func KartoatmodjoSchmidtBubblePoint(rsb float64, o Oil) (float64, error) {
 	if err := checkGOR("Rsb", rsb); err != nil {
 		return 0, err
 	}
-	k, c4, err := ksRsFactor(o)
+	lnK, c4, err := ksLogRsFactor(o)
 	if err != nil {
 		return 0, err
 	}
-	return finite(pow(rsb/k, c4))
+	return finite(math.Exp(c4 * (math.Log(rsb) - lnK)))
 }
 
 // KartoatmodjoSchmidtOilFVF returns the saturated oil formation volume factor (rb/STB),
