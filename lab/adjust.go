@@ -3,6 +3,8 @@ package lab
 import (
 	"errors"
 	"fmt"
+
+	"labmatch/correlations"
 )
 
 // ErrNoSeparator means a separator-basis series was asked of a report with no usable
@@ -11,12 +13,15 @@ var ErrNoSeparator = errors.New("lab: no usable separator test (need Bofb and st
 
 // BasisPoint is one separator-basis oil state.
 type BasisPoint struct {
-	Source   string  // "dl.csv" or "cce.csv"
-	Line     int     // line in Source (0 when built in code)
-	Pressure float64 // psia
-	Rs       float64 // scf/STB (separator basis)
-	Bo       float64 // rb/STB (separator basis)
-	Clamped  bool    // the adjusted Rs came out below zero and was set to zero
+	Source     string  // "dl.csv" or "cce.csv"
+	Line       int     // line in Source (0 when built in code)
+	Pressure   float64 // psia
+	Rs         float64 // scf/STB (separator basis)
+	Bo         float64 // rb/STB (separator basis)
+	Bt         float64 // total FVF, rb/STB (separator basis): Bo + Bg·(Rsfb − Rs)/5.614583; 0 without Bg
+	Bg         float64 // rcf/scf of the DL gas: as reported, or from the reported Z; 0 without either
+	GasDensity float64 // lbm/ft³ of the DL gas at the stage, from Z and the stage's gas gravity; 0 without them
+	Clamped    bool    // the adjusted Rs came out below zero and was set to zero
 }
 
 // SeparatorBasis is the report's oil data converted to the conditions of one separator test,
@@ -98,6 +103,10 @@ func (r *Report) SeparatorBasisWith(t SeparatorTest) (SeparatorBasis, error) {
 		if p.Rs < 0 {
 			p.Rs, p.Clamped = 0, true
 		}
+		r.gasAt(st, &p)
+		if p.Bg > 0 {
+			p.Bt = p.Bo + p.Bg/bblToFt3*(s.Rsfb-p.Rs)
+		}
 		s.Below = append(s.Below, p)
 	}
 	for _, c := range r.CCE {
@@ -127,4 +136,31 @@ func (s SeparatorBasis) RsAt(p float64) float64 {
 		prev = b
 	}
 	return prev.Rs
+}
+
+// bblToFt3 is the barrel in cubic feet: 42 US gal = 5.614583 ft³ (exact by definition).
+const bblToFt3 = 5.614583
+
+// gasAt fills the Bg and gas density of a DL stage's gas: Bg as reported or, where the report
+// lacks it, Bg = psc·Z·T/(Tsc·p) at the report's standard conditions (real-gas law, common
+// practice); the density ρg = p·28.96·γg/(Z·10.73·T) (Penn State PNG 520 molar mass of air,
+// gas constant from Lyons, Standard Handbook of Petroleum & Natural Gas Engineering).
+func (r *Report) gasAt(st DLStage, p *BasisPoint) {
+	tR := r.Fluid.Temperature + 459.67
+	p.Bg = st.Bg
+	if p.Bg == 0 && st.Z > 0 && st.Pressure > 0 {
+		psc, tsc := r.Fluid.StdPressure, r.Fluid.StdTemperature
+		if psc <= 0 {
+			psc = DefaultStdPressure
+		}
+		if tsc == 0 {
+			tsc = DefaultStdTemperature
+		}
+		p.Bg = psc * st.Z * tR / ((tsc + 459.67) * st.Pressure)
+	}
+	if st.Z > 0 && st.GasGravity > 0 {
+		if rho, err := correlations.GasDensity(st.Pressure, r.Fluid.Temperature, st.Z, st.GasGravity); err == nil {
+			p.GasDensity = rho
+		}
+	}
 }

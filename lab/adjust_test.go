@@ -179,3 +179,42 @@ func TestSeparatorExample6(t *testing.T) {
 		}
 	}
 }
+
+// Total FVF, Bg from Z and gas density on the separator basis.
+func TestBasisGasAndTotalFVF(t *testing.T) {
+	r := &Report{
+		Fluid: Fluid{Temperature: 200, Pb: 2000, API: 35, StdPressure: 14.696, StdTemperature: 60},
+		DL: []DLStage{
+			{Pressure: 2000, Rsd: 500, Bod: 1.30},
+			{Pressure: 1000, Rsd: 300, Bod: 1.20, Z: 0.9, GasGravity: 0.8},
+			{Pressure: 500, Rsd: 180, Bod: 1.14, Z: 0.93, Bg: 0.0321, GasGravity: 0.9},
+			{Pressure: 14.7, Rsd: 0, Bod: 1.05},
+		},
+		Separator: []SeparatorTest{{ID: "A", Bofb: 1.25, Stages: []SeparatorStage{{Stage: "1", GOR: 400}, {Stage: "stock tank", GOR: 60}}}},
+	}
+	b, err := r.SeparatorBasis()
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The Pb stage reports neither Z nor Bg, so its Bt is not computed.
+	if b.Below[0].Bt != 0 {
+		t.Errorf("Bt without Bg: %g, want 0 (not computed)", b.Below[0].Bt)
+	}
+	p1 := b.Below[1]
+	// Bg = 0.02827·Z·T/p rcf/scf at 14.696 psia and 60 °F (common practice; 0.02827 is
+	// 14.696/519.67 rounded, so 0.05 % tolerance).
+	if want := 0.02827 * 0.9 * 659.67 / 1000; math.Abs(p1.Bg/want-1) > 5e-4 {
+		t.Errorf("Bg from Z = %g, want %g", p1.Bg, want)
+	}
+	// ρg = p·M/(Z·R·T) with M = 28.96·γg and R = 10.73 (check-values.md constants):
+	// 1000·23.168/(0.9·10.73·659.67) = 3.6368 lbm/ft³.
+	if math.Abs(p1.GasDensity-3.6368) > 5e-4 {
+		t.Errorf("gas density %g, want 3.6368", p1.GasDensity)
+	}
+	if want := p1.Bo + p1.Bg/5.614583*(b.Rsfb-p1.Rs); math.Abs(p1.Bt-want) > 1e-12 {
+		t.Errorf("Bt %g, want %g", p1.Bt, want)
+	}
+	if b.Below[2].Bg != 0.0321 {
+		t.Errorf("a reported Bg must be kept: %g", b.Below[2].Bg)
+	}
+}
