@@ -216,3 +216,16 @@ func TestTuningFileRefusedForChangedReport(t *testing.T) {
 		t.Errorf("changed report with --force: exit %d: %s", code, e)
 	}
 }
+
+// Plain labmatch runs the main job on the demo report and shows the cautions.
+func TestDemoSummary(t *testing.T) {
+	code, out, e := runCLI(t)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, e)
+	}
+	for _, want := range []string{"tr3-black", "clean: no errors or warnings", "Best family per property", "pb ", "qualified engineers"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("summary lacks %q", want)
+		}
+	}
+}
