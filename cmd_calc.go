@@ -78,6 +78,7 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	temp := quantity(fs, "temperature", lab.Temperature, 0, "reservoir `temperature` (default unit degF)")
 	rsb := quantity(fs, "rsb", lab.GOR, 0, "solution GOR at the bubble point (default unit scf/STB)")
 	press := quantity(fs, "pressure", lab.Pressure, 0, "`pressure` to evaluate at (default unit psia)")
+	sepGG := fs.Float64("sep-gas-gravity", 0, "first-stage separator gas `gravity`, for Vasquez–Beggs and Kartoatmodjo–Schmidt (default: --gas-gravity)")
 	sepP := quantity(fs, "sep-pressure", lab.Pressure, 114.7, "first-stage separator `pressure`, for the separator-gas normalisations (default 114.7 psia)")
 	sepT := quantity(fs, "sep-temperature", lab.Temperature, 60, "first-stage separator `temperature` (default 60 degF)")
 	fams := familyFlags(fs, fit.DefaultFamilies, fit.Pb, fit.Bo, fit.Co, fit.MuDead, fit.MuSat, fit.MuUnder)
@@ -97,7 +98,7 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 			return usageError(fs, stderr, "%s is required (and must be above zero)", req.name)
 		}
 	}
-	ds := &fit.Dataset{Oil: correlations.Oil{API: *api, GasGravity: *gg, Temperature: temp.v, SepPressure: sepP.v, SepTemperature: sepT.v},
+	ds := &fit.Dataset{Oil: correlations.Oil{API: *api, GasGravity: *gg, Temperature: temp.v, SepPressure: sepP.v, SepTemperature: sepT.v, SepGasGravity: *sepGG},
 		Rsb: rsb.v, StdPressure: 14.696, StdTemp: 60}
 	choice, err := fams.choice()
 	if err != nil {

@@ -26,9 +26,9 @@ func ksGasGravity(o Oil) (float64, error) {
 		return 0, inputError("separator temperature", tsep, "> 0 °F for the Kartoatmodjo–Schmidt normalisation")
 	}
 	if psep == defaultSepPressure {
-		return o.GasGravity, nil // log10(1) = 0: no correction
+		return o.firstStageGasGravity(), nil // log10(1) = 0: no correction
 	}
-	g := o.GasGravity * (1 + 0.1595*math.Exp(0.4078*math.Log(o.API)-0.2466*math.Log(tsep))*math.Log10(psep/114.7))
+	g := o.firstStageGasGravity() * (1 + 0.1595*math.Exp(0.4078*math.Log(o.API)-0.2466*math.Log(tsep))*math.Log10(psep/114.7))
 	if !(g > 0) {
 		return 0, inputError("separator pressure", psep, "a value for which the normalised gas gravity stays > 0")
 	}

@@ -35,8 +35,8 @@ const (
 	refSVM      = "J.P. Spivey, P.P. Valkó and W.D. McCain, \"Applications of the Coefficient of Isothermal Compressibility to Various Reservoir Situations With New Correlations for Each Situation\", SPE Res. Eval. & Eng. 10 (Feb. 2007) 43–49, SPE 96415"
 	refMRV      = "W.D. McCain Jr., J.B. Rollins and A.J. Villena Lanzi, \"The Coefficient of Isothermal Compressibility of Black Oils at Pressures Below the Bubblepoint\", SPE Formation Evaluation 3 (Sept. 1988) 659–662, SPE 15664"
 
-	convVB = "gas gravity normalised to a 100 psig (114.7 psia) separator: γgs = γg·[1 + 5.912e−5·API·Tsep·log10(psep/114.7)], Tsep in °F; unknown separator conditions are taken as 114.7 psia and 60 °F (no correction); coefficient sets for API ≤ 30 and API > 30"
-	convKS = "gas gravity normalised to a 100 psig separator: γg100 = γg·[1 + 0.1595·API^0.4078·Tsep^−0.2466·log10(psep/114.7)], Tsep in °F; unknown separator conditions are taken as 114.7 psia and 60 °F; coefficient sets for API ≤ 30 and API > 30"
+	convVB = "first-stage separator gas gravity normalised to a 100 psig (114.7 psia) separator: γgs = γg·[1 + 5.912e−5·API·Tsep·log10(psep/114.7)], Tsep in °F; unknown separator conditions are taken as 114.7 psia and 60 °F (no correction); coefficient sets for API ≤ 30 and API > 30"
+	convKS = "first-stage separator gas gravity normalised to a 100 psig separator: γg100 = γg·[1 + 0.1595·API^0.4078·Tsep^−0.2466·log10(psep/114.7)], Tsep in °F; unknown separator conditions are taken as 114.7 psia and 60 °F; coefficient sets for API ≤ 30 and API > 30"
 )
 
 var (

@@ -25,6 +25,19 @@ type Oil struct {
 	Temperature    float64 // reservoir temperature, °F
 	SepPressure    float64 // first-stage separator pressure, psia; 0 means unknown (114.7 is used)
 	SepTemperature float64 // first-stage separator temperature, °F; 0 means unknown (60 is used)
+	// SepGasGravity is the gravity of the first-stage separator gas, which the families that
+	// normalise the gas gravity to a 100 psig separator (Vasquez–Beggs, Kartoatmodjo–Schmidt)
+	// take; 0 means unknown (GasGravity is used).
+	SepGasGravity float64
+}
+
+// firstStageGasGravity returns the first-stage separator gas gravity, or GasGravity when it
+// is unknown.
+func (o Oil) firstStageGasGravity() float64 {
+	if o.SepGasGravity > 0 {
+		return o.SepGasGravity
+	}
+	return o.GasGravity
 }
 
 // OilGravity returns the stock-tank oil specific gravity (water = 1) from API gravity:

@@ -35,7 +35,8 @@ func vbCoefs(api float64) *vbCoef {
 }
 
 // VasquezBeggsGasGravity returns the separator gas gravity normalised to a 100 psig
-// separator, γgs, from o.GasGravity and the separator conditions of o (see the file comment).
+// separator, γgs, from the first-stage separator gas gravity (o.SepGasGravity, else
+// o.GasGravity) and the separator conditions of o (see the file comment).
 func VasquezBeggsGasGravity(o Oil) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
@@ -45,7 +46,7 @@ func VasquezBeggsGasGravity(o Oil) (float64, error) {
 
 func vbGasGravity(o Oil) (float64, error) {
 	psep, tsep := sepConditions(o)
-	g := o.GasGravity * (1 + 5.912e-5*o.API*tsep*math.Log10(psep/114.7))
+	g := o.firstStageGasGravity() * (1 + 5.912e-5*o.API*tsep*math.Log10(psep/114.7))
 	if !(g > 0) {
 		return 0, inputError("separator pressure", psep, "a value for which the normalised gas gravity stays > 0")
 	}

@@ -58,9 +58,10 @@ func NewDataset(r *lab.Report) (*Dataset, error) {
 	if ds.StdTemp == 0 {
 		ds.StdTemp = 60
 	}
-	if len(t.Stages) > 0 {
+	if len(t.Stages) > 1 { // a first stage ahead of the stock tank
 		ds.Oil.SepPressure = t.Stages[0].Pressure
 		ds.Oil.SepTemperature = t.Stages[0].Temperature
+		ds.Oil.SepGasGravity = t.Stages[0].GasGravity
 	}
 
 	// pb: the report's Pb at Rsb, then the adjusted Rs below Pb.

@@ -7,6 +7,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"testing/fstest"
 )
 
 // A unit typed into a number cell gets the header hint; a typo does not.
@@ -54,5 +55,18 @@ func TestWriteFileAtomic(t *testing.T) {
 	ents, _ := os.ReadDir(filepath.Dir(p))
 	if len(ents) != 1 {
 		t.Errorf("temporary files left behind: %v", ents)
+	}
+}
+
+// A one-atmosphere-ish gap between two absolute pressures is an ordinary spread, not a
+// refused report: 2620 psia in fluid.csv and dl.csv, the CCE's V/Vsat = 1 at 2634.9 psia.
+func TestNearAtmosphereGapLoads(t *testing.T) {
+	fsys := fstest.MapFS{
+		"r/fluid.csv": {Data: []byte("key,value,unit\nreservoir temperature,200,degF\nsaturation pressure,2620,psia\nstock-tank API,35,API\n")},
+		"r/dl.csv":    {Data: []byte("pressure [psia],Rsd [scf/STB],Bod [rb/STB]\n2620,600,1.35\n1500,400,1.25\n14.7,0,1.05\n")},
+		"r/cce.csv":   {Data: []byte("pressure [psia],relative volume\n4000,0.985\n2634.9,1\n2000,1.12\n")},
+	}
+	if _, err := ReadFS(fsys, "r"); err != nil {
+		t.Fatalf("refused: %v", err)
 	}
 }

@@ -530,10 +530,18 @@ func (q *qcReport) separator() {
 				"separator test %s has no Bofb: it cannot be used to adjust the DL", t.ID)
 			continue
 		}
+		// A multi-stage flash usually leaves more stock-tank oil and less gas than the DL:
+		// Bofb < Bodb and Rsfb < Rsdb (common practice). A single-stage or hot flash can break
+		// it, so these are warnings.
 		if haveDL && b.Bod > 0 && t.Bofb >= b.Bod {
-			q.add(Error, qcSepFile, row, "sep-bofb-above-bodb", "check Bofb of this test and Bod of the DL's first stage",
-				"separator test %s has Bofb %.5g ≥ Bodb %.5g (dl.csv line %d); the flash yields more stock-tank oil than the DL, so Bofb should be smaller",
+			q.add(Warning, qcSepFile, row, "sep-bofb-above-bodb", "check Bofb of this test and Bod of the DL's first stage",
+				"separator test %s has Bofb %.5g ≥ Bodb %.5g (dl.csv line %d); the flash usually yields more stock-tank oil than the DL, so Bofb should be smaller",
 				t.ID, t.Bofb, b.Bod, b.Line)
+		}
+		if rsfb := t.Rsfb(); haveDL && b.Rsd > 0 && rsfb >= b.Rsd {
+			q.add(Warning, qcSepFile, row, "sep-rsfb-above-rsdb", "check that the stage GORs are per STB of stock-tank oil, not per barrel of separator oil",
+				"separator test %s has Rsfb %.5g ≥ Rsdb %.5g scf/bbl (dl.csv line %d); the flash usually liberates less gas than the DL",
+				t.ID, rsfb, b.Rsd, b.Line)
 		}
 		if haveSel && t.ID == sel.ID && t.API > 0 && r.Fluid.API > 0 && math.Abs(t.API-r.Fluid.API) > qcAPITol {
 			q.add(Warning, qcSepFile, row, "sep-api-mismatch", "use the selected test's stock-tank API in fluid.csv, or select the test it belongs to",

@@ -604,9 +604,18 @@ func (fr *folderReader) readViscosity() ([]ViscosityPoint, error) {
 // one of them was almost surely a gauge value written as absolute or the reverse. The
 // hint names the candidates that the units as written allow; pbConfirmed drops the
 // saturation pressure when a third table agrees with it.
+//
+// When the two are written in the same kind of unit (both absolute, say) a gap near one
+// atmosphere may also be an ordinary spread between tables, so the gap must then match
+// 14.696 psi to gaugeSlipSameTol (a value copied from a gauge column); wider gaps are left to
+// the QC finding pb-psig-psia.
 func (fr *folderReader) gaugeSlip(fl Fluid, other string, otherUnit unitDef, p float64, line int, pbConfirmed bool) error {
 	d := fl.Pb - p
-	if math.Abs(math.Abs(d)-gaugeSlipPsi) > gaugeSlipTol {
+	tol := gaugeSlipTol
+	if fr.pbUnit.gauge == otherUnit.gauge {
+		tol = gaugeSlipSameTol
+	}
+	if math.Abs(math.Abs(d)-gaugeSlipPsi) > tol {
 		return nil
 	}
 	other = fr.names[other]
@@ -644,10 +653,12 @@ func slip(u unitDef) string {
 }
 
 // gaugeSlip is the band of a psig/psia mix-up: one atmosphere, 14.696 psi, ± 0.5 psi for
-// the rounding of reported pressures.
+// the rounding of reported pressures when one value is gauge and the other absolute, ± 0.1
+// psi when both are written alike.
 const (
-	gaugeSlipPsi = atmPsi
-	gaugeSlipTol = 0.5
+	gaugeSlipPsi     = atmPsi
+	gaugeSlipTol     = 0.5
+	gaugeSlipSameTol = 0.1
 )
 
 // crossCheck finds slips that only show between files.

@@ -58,7 +58,7 @@ func TestDemoDLAdjustsToIntendedValues(t *testing.T) {
 		if sel.ID != "S2" {
 			t.Errorf("%s: selected test %s, want S2 (the smallest Bofb)", s.ID, sel.ID)
 		}
-		tr, err := newTruth(s, sel.Stages[0].Pressure, sel.Stages[0].Temperature)
+		tr, err := newTruth(s, sel.Stages[0].Pressure, sel.Stages[0].Temperature, sel.Stages[0].GasGravity)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -55,8 +55,9 @@ type truth struct {
 	muob  float64
 }
 
-func newTruth(s spec.Spec, sepP, sepT float64) (*truth, error) {
-	t := &truth{s: s, oil: correlations.Oil{API: s.API, GasGravity: s.GasGravity, Temperature: s.Temperature, SepPressure: sepP, SepTemperature: sepT}}
+func newTruth(s spec.Spec, sepP, sepT, sepGG float64) (*truth, error) {
+	t := &truth{s: s, oil: correlations.Oil{API: s.API, GasGravity: s.GasGravity, Temperature: s.Temperature,
+		SepPressure: sepP, SepTemperature: sepT, SepGasGravity: sepGG}}
 	var err error
 	if t.sg, err = correlations.SolutionGasByID(s.Pb); err != nil {
 		return nil, err
@@ -152,7 +153,13 @@ func build(s spec.Spec) (*lab.Report, error) {
 	// Separator tests: first-stage pressure differs; the middle one gives the most stock-tank oil.
 	sepPs := []float64{64.7, 114.7, 214.7}
 	sepTs := []float64{72, 75, 78}
-	t, err := newTruth(s, sepPs[1], sepTs[1])
+	gStock := s.GasGravity + 0.45 // stock-tank gas is heavier (common practice)
+	firstFrac := func(i int) float64 { return 0.78 + 0.04*float64(i) }
+	firstGravity := func(i int) float64 { // so that the GOR-weighted gravity is s.GasGravity
+		f := firstFrac(i)
+		return round((s.GasGravity-gStock*(1-f))/f, 3)
+	}
+	t, err := newTruth(s, sepPs[1], sepTs[1], firstGravity(1))
 	if err != nil {
 		return nil, err
 	}
@@ -160,22 +167,20 @@ func build(s spec.Spec) (*lab.Report, error) {
 		Sample: s.Well + " bottom-hole sample (invented)", Temperature: s.Temperature,
 		Pb: round(t.pb, 0), API: s.API, StdPressure: std, StdTemperature: 60,
 	}}
-	gStock := s.GasGravity + 0.45 // stock-tank gas is heavier (common practice)
 	for i, sp := range sepPs {
 		scaleB, scaleR := 1.0, 1.0
 		if i != 1 {
-			scaleB, scaleR = 1+0.006*float64(i+1), 1+0.012*float64(i+1)
+			scaleB, scaleR = 1+0.004*float64(i+1), 1+0.006*float64(i+1)
 		}
 		total := s.Rsb * scaleR
-		first := total * (0.78 + 0.04*float64(i))
+		first := total * firstFrac(i)
 		stock := total - first
-		g1 := (s.GasGravity*total - gStock*stock) / first
 		test := lab.SeparatorTest{ID: fmt.Sprintf("S%d", i+1), Bofb: round(t.bob*scaleB, 4), API: round(s.API-0.2*float64(i-1), 1)}
 		if i == 1 {
 			test.Bofb = round(t.bob, 4)
 		}
 		test.Stages = []lab.SeparatorStage{
-			{Stage: "1", Pressure: sp, Temperature: sepTs[i], GOR: round(first, 0), GasGravity: round(g1, 3)},
+			{Stage: "1", Pressure: sp, Temperature: sepTs[i], GOR: round(first, 0), GasGravity: firstGravity(i)},
 			{Stage: "stock tank", Pressure: atm, Temperature: 60, GOR: round(stock, 0), GasGravity: round(gStock, 3)},
 		}
 		r.Separator = append(r.Separator, test)
