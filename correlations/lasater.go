@@ -32,27 +32,26 @@ const lasaterYgBreak = 0.6
 // data) Pb is continued in proportion to Rs.
 const lasaterYgMax = 0.95
 
+// lasaterYgMin bounds the chart fit from below: the fit gives pf = 0.356, not zero, at
+// yg = 0 (the chart does not reach dead oil), so below yg = 0.05 (Rs of roughly 10–30
+// scf/STB) Pb is continued in proportion to Rs down to zero, and low-pressure DL stages get
+// a small Rs instead of none.
+const lasaterYgMin = 0.05
+
 var (
 	lasaterPfMax  = 8.26*pow(lasaterYgMax, 3.56) + 1.95
 	lasaterPfLow  = 0.679*math.Exp(2.786*lasaterYgBreak) - 0.323
 	lasaterPfHigh = 8.26*pow(lasaterYgBreak, 3.56) + 1.95
-	lasaterPfZero = 0.679 - 0.323 // pf at yg = 0
+	lasaterPfMin  = 0.679*math.Exp(2.786*lasaterYgMin) - 0.323 // pf at yg = 0.05
 )
 
-func checkLasater(o Oil) error {
-	if err := checkOil(o); err != nil {
-		return err
-	}
-	if !(lasaterMo(o.API) > 0) {
-		return inputError("API", o.API, "below 63 for Lasater's molecular-weight chart")
-	}
-	return nil
-}
+// The stock-tank molecular-weight fits stay positive for every API > 0 (630 − 10·API for
+// API ≤ 40), so checkOil is all Lasater needs.
+func checkLasater(o Oil) error { return checkOil(o) }
 
 // LasaterBubblePoint returns the bubble-point pressure (psia), Lasater (1958), the published
-// direction: Pb = pf(yg)·(T + 459.67)/γg with the chart fits above. At Rsb = 0 the fit gives
-// pf = 0.356, not zero: the chart does not reach down to dead oil. Above yg = 0.95 Pb is
-// continued in proportion to Rsb (see lasaterYgMax).
+// direction: Pb = pf(yg)·(T + 459.67)/γg with the chart fits above. Below yg = 0.05 and above
+// yg = 0.95 Pb is continued in proportion to Rsb (see lasaterYgMin and lasaterYgMax).
 func LasaterBubblePoint(rsb float64, o Oil) (float64, error) {
 	if err := checkLasater(o); err != nil {
 		return 0, err
@@ -68,6 +67,10 @@ func LasaterBubblePoint(rsb float64, o Oil) (float64, error) {
 		rsHi := 379.3 * k * lasaterYgMax / (1 - lasaterYgMax)
 		return finite(lasaterPfMax * tOverG * rsb / rsHi)
 	}
+	if yg < lasaterYgMin {
+		rsLo := 379.3 * k * lasaterYgMin / (1 - lasaterYgMin)
+		return finite(lasaterPfMin * tOverG * rsb / rsLo)
+	}
 	var pf float64
 	if yg <= lasaterYgBreak {
 		pf = 0.679*math.Exp(2.786*yg) - 0.323
@@ -80,9 +83,8 @@ func LasaterBubblePoint(rsb float64, o Oil) (float64, error) {
 // LasaterSolutionGOR returns the solution GOR (scf/STB) at p psia by inverting the chart fits
 // of LasaterBubblePoint in closed form: pf = p·γg/T, then yg from the matching branch, then
 // Rs = 379.3·(350·γo/Mo)·yg/(1 − yg). Pressures in the small gap between the branches map to
-// yg = 0.6, pressures below the dead-oil value of the fit (pf < 0.356) give Rs = 0, and
-// pressures above pf(0.95) invert the proportional continuation, so the pair is exactly
-// inverse for every Rsb > 0.
+// yg = 0.6, and pressures below pf(0.05) or above pf(0.95) invert the proportional
+// continuations, so the pair is exactly inverse for every Rsb > 0.
 func LasaterSolutionGOR(p float64, o Oil) (float64, error) {
 	if err := checkLasater(o); err != nil {
 		return 0, err
@@ -98,8 +100,9 @@ func LasaterSolutionGOR(p float64, o Oil) (float64, error) {
 	}
 	var yg float64
 	switch {
-	case pf <= lasaterPfZero:
-		return 0, nil
+	case pf < lasaterPfMin:
+		rsLo := 379.3 * k * lasaterYgMin / (1 - lasaterYgMin)
+		return finite(rsLo * pf / lasaterPfMin)
 	case pf <= lasaterPfLow:
 		yg = math.Log((pf+0.323)/0.679) / 2.786
 	case pf < lasaterPfHigh:

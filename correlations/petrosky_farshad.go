@@ -96,6 +96,9 @@ func PetroskyFarshadCo(p, pb, rsb float64, o Oil) (float64, error) {
 	if err := checkUndersaturated(p, pb, rsb); err != nil {
 		return 0, err
 	}
+	if !(rsb > 0) {
+		return 0, inputError("Rsb", rsb, "> 0 scf/STB: the correlation gives no compressibility for dead oil")
+	}
 	return finite(pfCoFactor(rsb, o) * pow(p, -0.5906))
 }
 
@@ -107,6 +110,9 @@ func PetroskyFarshadRelativeVolume(p, pb, rsb float64, o Oil) (float64, error) {
 	}
 	if err := checkUndersaturated(p, pb, rsb); err != nil {
 		return 0, err
+	}
+	if !(rsb > 0) {
+		return 0, inputError("Rsb", rsb, "> 0 scf/STB: the correlation gives no compressibility for dead oil")
 	}
 	const e = 1 - 0.5906
 	integral := pfCoFactor(rsb, o) / e * (pow(p, e) - pow(pb, e))

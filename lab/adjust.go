@@ -59,15 +59,23 @@ func (s SeparatorBasis) UnadjustRs(rs float64) float64 {
 }
 
 // BubblePointStage returns the index of the DL stage taken as the bubble point: the first
-// (highest-pressure) stage, which dl.csv starts with by convention. It returns -1 when the DL
-// is empty.
+// stage at or below the report's saturation pressure (within 0.5 %), which dl.csv starts with
+// by convention; a stage above Pb (QC warns of it: dl-above-pb) is skipped. It returns -1
+// when the DL is empty.
 func (r *Report) BubblePointStage() int {
+	first := -1
 	for i, st := range r.DL {
-		if !st.Residual60 {
+		if st.Residual60 {
+			continue
+		}
+		if first < 0 {
+			first = i
+		}
+		if r.Fluid.Pb <= 0 || st.Pressure <= r.Fluid.Pb*1.005 {
 			return i
 		}
 	}
-	return -1
+	return first
 }
 
 // SeparatorBasis converts the DL (and the CCE above Pb) to the conditions of the selected

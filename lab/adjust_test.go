@@ -218,3 +218,15 @@ func TestBasisGasAndTotalFVF(t *testing.T) {
 		t.Errorf("a reported Bg must be kept: %g", b.Below[2].Bg)
 	}
 }
+
+// A DL row above the saturation pressure is not taken as the bubble-point stage.
+func TestBubblePointStageSkipsRowsAbovePb(t *testing.T) {
+	r := &Report{Fluid: Fluid{Pb: 2000}, DL: []DLStage{{Pressure: 2500}, {Pressure: 2000}, {Pressure: 1000}}}
+	if i := r.BubblePointStage(); i != 1 {
+		t.Errorf("bubble-point stage %d, want 1", i)
+	}
+	r.DL = []DLStage{{Pressure: 2600}, {Pressure: 2500}}
+	if i := r.BubblePointStage(); i != 0 {
+		t.Errorf("no stage at or below Pb: stage %d, want the first (0)", i)
+	}
+}
