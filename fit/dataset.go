@@ -35,7 +35,7 @@ type Dataset struct {
 func NewDataset(r *lab.Report) (*Dataset, error) {
 	basis, err := r.SeparatorBasis()
 	if err != nil {
-		return nil, fmt.Errorf("fit: %w", err)
+		return nil, fmt.Errorf("fit: tuning needs separator-basis data: %w", err)
 	}
 	t, _ := r.SelectedSeparator()
 	gg := r.GasGravity()

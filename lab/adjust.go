@@ -9,7 +9,7 @@ import (
 
 // ErrNoSeparator means a separator-basis series was asked of a report with no usable
 // separator test.
-var ErrNoSeparator = errors.New("lab: no usable separator test (need Bofb and stage GORs)")
+var ErrNoSeparator = errors.New("lab: no usable separator test (separator.csv needs stage GORs and Bofb)")
 
 // BasisPoint is one separator-basis oil state.
 type BasisPoint struct {
