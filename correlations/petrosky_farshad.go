@@ -85,19 +85,28 @@ func pfCoFactor(rsb float64, o Oil) float64 {
 		0.3272*math.Log(o.API)+0.6729*math.Log(o.Temperature))
 }
 
+// checkPFCo validates the inputs of the Petrosky–Farshad compressibility: an undersaturated
+// state and Rsb > 0 (co is a power of Rsb, zero for dead oil).
+func checkPFCo(p, pb, rsb float64, o Oil) error {
+	if err := checkOilPositiveT(o); err != nil {
+		return err
+	}
+	if err := checkUndersaturated(p, pb, rsb); err != nil {
+		return err
+	}
+	if !(rsb > 0) {
+		return inputError("Rsb", rsb, "> 0 scf/STB: the correlation gives no compressibility for dead oil")
+	}
+	return nil
+}
+
 // PetroskyFarshadCo returns the undersaturated oil compressibility (1/psi) at p ≥ pb,
 // Petrosky and Farshad (1993):
 //
 //	co = 1.705e−7 · Rsb^0.69357 · γg^0.1885 · API^0.3272 · T^0.6729 · p^−0.5906,  T °F.
 func PetroskyFarshadCo(p, pb, rsb float64, o Oil) (float64, error) {
-	if err := checkOilPositiveT(o); err != nil {
+	if err := checkPFCo(p, pb, rsb, o); err != nil {
 		return 0, err
-	}
-	if err := checkUndersaturated(p, pb, rsb); err != nil {
-		return 0, err
-	}
-	if !(rsb > 0) {
-		return 0, inputError("Rsb", rsb, "> 0 scf/STB: the correlation gives no compressibility for dead oil")
 	}
 	return finite(pfCoFactor(rsb, o) * pow(p, -0.5906))
 }
@@ -105,14 +114,8 @@ func PetroskyFarshadCo(p, pb, rsb float64, o Oil) (float64, error) {
 // PetroskyFarshadRelativeVolume returns Bo(p)/Bo(pb) for p ≥ pb from PetroskyFarshadCo
 // integrated in closed form: ∫co dp = A/0.4094 · (p^0.4094 − pb^0.4094).
 func PetroskyFarshadRelativeVolume(p, pb, rsb float64, o Oil) (float64, error) {
-	if err := checkOilPositiveT(o); err != nil {
+	if err := checkPFCo(p, pb, rsb, o); err != nil {
 		return 0, err
-	}
-	if err := checkUndersaturated(p, pb, rsb); err != nil {
-		return 0, err
-	}
-	if !(rsb > 0) {
-		return 0, inputError("Rsb", rsb, "> 0 scf/STB: the correlation gives no compressibility for dead oil")
 	}
 	const e = 1 - 0.5906
 	integral := pfCoFactor(rsb, o) / e * (pow(p, e) - pow(pb, e))
