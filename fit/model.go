@@ -131,6 +131,18 @@ func (m *Model) Rs(p float64) (float64, error) {
 	return math.Max(0, math.Min(rs, m.Rsb)), err
 }
 
+// BubblePoint returns the tuned bubble point (psia) of an oil holding rs scf/STB: the report's
+// oil at rs = Rsb, and above Rsb the hypothetical oils with more gas that a table needs when gas
+// re-dissolves (extrapolated beyond the report).
+func (m *Model) BubblePoint(rs float64) (float64, error) {
+	q := m.Params[Pb]
+	v, err := m.sg.BubblePoint(rs, m.Oil)
+	if err != nil {
+		return 0, fmt.Errorf("fit: model: bubble point at Rs %g scf/STB: %w", rs, err)
+	}
+	return q.Multiplier*v + q.Shift, nil
+}
+
 func (m *Model) boSat(p, rs float64) (float64, error) {
 	v, err := m.bo.FVF(p, rs, m.Oil)
 	q := m.Params[Bo]
@@ -143,51 +155,109 @@ func (m *Model) muSat(rs float64) (float64, error) {
 	return q.Multiplier*v + q.Shift, err
 }
 
-// At evaluates every property at pressure p (psia) and reservoir temperature.
+// At evaluates every property at pressure p (psia) and reservoir temperature for the report's
+// oil: saturated at and below the tuned Pb, undersaturated above it.
 func (m *Model) At(p float64) (State, error) {
 	if !(p > 0) || math.IsInf(p, 0) {
 		return State{}, fmt.Errorf("fit: model: pressure %g psia, want > 0", p)
 	}
-	s := State{Pressure: p}
+	if p > m.Pb {
+		return m.Undersaturated(m.Rsb, p)
+	}
+	rs, err := m.Rs(p)
+	if err != nil {
+		return State{Pressure: p}, fmt.Errorf("fit: model: Rs at %g psia: %w", p, err)
+	}
+	return m.saturated(p, rs)
+}
+
+// Saturated evaluates every property of an oil holding rs scf/STB at its tuned bubble point
+// (BubblePoint(rs)): one saturated row of a black-oil table.
+func (m *Model) Saturated(rs float64) (State, error) {
+	pb, err := m.BubblePoint(rs)
+	if err != nil {
+		return State{}, err
+	}
+	if !(pb > 0) {
+		return State{}, fmt.Errorf("fit: model: bubble point %g psia at Rs %g scf/STB, want > 0", pb, rs)
+	}
+	return m.saturated(pb, rs)
+}
+
+func (m *Model) saturated(p, rs float64) (State, error) {
+	s := State{Pressure: p, Rs: rs}
 	var err error
-	if s.Rs, err = m.Rs(p); err != nil {
-		return s, fmt.Errorf("fit: model: Rs at %g psia: %w", p, err)
+	if s.Bo, err = m.boSat(p, rs); err != nil {
+		return s, fmt.Errorf("fit: model: Bo at %g psia: %w", p, err)
+	}
+	if s.OilViscosity, err = m.muSat(rs); err != nil {
+		return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
+	}
+	if m.coLow != nil {
+		pb, rsb := m.Pb, m.Rsb
+		if p > m.Pb { // a saturated row of an oil with more gas than the report's
+			pb, rsb = p, rs
+		}
+		if s.Co, err = m.coLow.Co(p, pb, rsb, m.Oil); err != nil {
+			s.Co = 0 // the below-Pb compressibility is informative only
+		}
+	}
+	return m.withOilDensityAndGas(s)
+}
+
+// Undersaturated evaluates every property of an oil holding rs scf/STB at a pressure p above
+// its tuned bubble point: Bo = Bo(Pb)·exp(−∫co dp) with the tuned compressibility, and the
+// tuned viscosity increase above the viscosity at Pb. With rs = Rsb it is the report's oil
+// above Pb; with other rs, one point of an undersaturated branch of a black-oil table.
+func (m *Model) Undersaturated(rs, p float64) (State, error) {
+	if !(p > 0) || math.IsInf(p, 0) {
+		return State{}, fmt.Errorf("fit: model: pressure %g psia, want > 0", p)
+	}
+	pb, err := m.BubblePoint(rs)
+	if err != nil {
+		return State{}, err
+	}
+	if p < pb {
+		return State{}, fmt.Errorf("fit: model: %g psia is below the bubble point %.6g psia of an oil with Rs %g scf/STB", p, pb, rs)
+	}
+	s := State{Pressure: p, Rs: rs}
+	bob, err := m.boSat(pb, rs)
+	if err != nil {
+		return s, fmt.Errorf("fit: model: Bo at Pb %g psia: %w", pb, err)
+	}
+	mub, err := m.muSat(rs)
+	if err != nil {
+		return s, fmt.Errorf("fit: model: oil viscosity at Pb %g psia: %w", pb, err)
 	}
 	qc := m.Params[Co]
-	if p <= m.Pb {
-		if s.Bo, err = m.boSat(p, s.Rs); err != nil {
-			return s, fmt.Errorf("fit: model: Bo at %g psia: %w", p, err)
-		}
-		if s.OilViscosity, err = m.muSat(s.Rs); err != nil {
-			return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
-		}
-		if m.coLow != nil {
-			if s.Co, err = m.coLow.Co(p, m.Pb, m.Rsb, m.Oil); err != nil {
-				s.Co = 0 // the below-Pb compressibility is informative only
-			}
-		}
-	} else {
-		rv, err := m.co.RelativeVolume(p, m.Pb, m.Rsb, m.Oil)
-		if err != nil || rv <= 0 {
-			return s, fmt.Errorf("fit: model: relative volume at %g psia: %v", p, err)
-		}
-		s.Bo = m.Bob * math.Exp(qc.Multiplier*math.Log(rv)-qc.Shift*(p-m.Pb))
-		co, err := m.co.Co(p, m.Pb, m.Rsb, m.Oil)
-		if err != nil {
-			return s, fmt.Errorf("fit: model: co at %g psia: %w", p, err)
-		}
-		s.Co = qc.Multiplier*co + qc.Shift
-		mu, err := m.under.Viscosity(p, m.Pb, m.MuB, m.Oil)
-		if err != nil {
-			return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
-		}
-		mu0, err := m.under.Viscosity(m.Pb, m.Pb, m.MuB, m.Oil)
-		if err != nil {
-			return s, fmt.Errorf("fit: model: oil viscosity at Pb: %w", err)
-		}
-		qu := m.Params[MuUnder]
-		s.OilViscosity = m.MuB + qu.Multiplier*(mu-mu0) + qu.Shift
+	rv, err := m.co.RelativeVolume(p, pb, rs, m.Oil)
+	if err != nil || rv <= 0 {
+		return s, fmt.Errorf("fit: model: relative volume at %g psia: %v", p, err)
 	}
+	s.Bo = bob * math.Exp(qc.Multiplier*math.Log(rv)-qc.Shift*(p-pb))
+	co, err := m.co.Co(p, pb, rs, m.Oil)
+	if err != nil {
+		return s, fmt.Errorf("fit: model: co at %g psia: %w", p, err)
+	}
+	s.Co = qc.Multiplier*co + qc.Shift
+	mu, err := m.under.Viscosity(p, pb, mub, m.Oil)
+	if err != nil {
+		return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
+	}
+	mu0, err := m.under.Viscosity(pb, pb, mub, m.Oil)
+	if err != nil {
+		return s, fmt.Errorf("fit: model: oil viscosity at Pb: %w", err)
+	}
+	qu := m.Params[MuUnder]
+	s.OilViscosity = mub + qu.Multiplier*(mu-mu0) + qu.Shift
+	return m.withOilDensityAndGas(s)
+}
+
+// withOilDensityAndGas completes a state with the oil density and the gas properties at its
+// pressure.
+func (m *Model) withOilDensityAndGas(s State) (State, error) {
+	var err error
+	p := s.Pressure
 	if s.OilDensity, err = correlations.OilDensity(s.Rs, s.Bo, m.Oil); err != nil {
 		return s, fmt.Errorf("fit: model: oil density at %g psia: %w", p, err)
 	}

@@ -64,6 +64,11 @@ type Result struct {
 	Flags      []string // multiplier far from 1 or at its bound, parameters left out, …
 	OutOfRange []string // inputs outside the family's original data
 	Evals      int      // objective evaluations
+
+	Depth  Depth    // the rung the parameters belong to
+	Ladder []Rung   // every rung with its training and leave-one-out errors, shallowest first
+	LOO    *float64 // leave-one-out AARE (%) of the chosen rung; nil when not available
+	NoFit  string   // set when even the chosen rung leaves a large error: the remark in words
 }
 
 // problem is one property, one family, its points and the scratch space of the objective.

@@ -104,6 +104,36 @@ func (o Options) pseudoCritical() string {
 	return o.PseudoCritical
 }
 
+// Depth is a rung of the tuning ladder (DESIGN.md §5). Each rung's parameters are a superset
+// of the rung below.
+type Depth string
+
+// The rungs, shallowest first.
+const (
+	DepthPublished  Depth = "published"  // the published correlation, no parameter
+	DepthMultiplier Depth = "multiplier" // pb: the anchor on the report's Pb alone; others: one multiplier
+	DepthShape      Depth = "shape"      // pb: a bend of Rs(p) below Pb; others: multiplier and shift
+	DepthRefit      Depth = "refit"      // the family's declared coefficients, regularised towards the published values
+)
+
+// Depths lists the rungs of the ladder, shallowest first.
+var Depths = []Depth{DepthPublished, DepthMultiplier, DepthShape, DepthRefit}
+
+// Rung is one depth of a property's ladder: its parameters and its training and
+// leave-one-out errors.
+type Rung struct {
+	Depth   Depth    `json:"depth"`
+	Free    int      `json:"free_parameters"`
+	Params  Params   `json:"parameters"`
+	Tuned   Stats    `json:"tuned"`                     // training statistics at the rung's optimum
+	LOO     *float64 `json:"aare_pct_loo"`              // leave-one-out AARE, %; nil when not available
+	LOOMax  *float64 `json:"max_are_pct_loo,omitempty"` // largest leave-one-out |RE|, %
+	LOONote string   `json:"loo_note,omitempty"`        // why there is no leave-one-out error
+	Skipped string   `json:"skipped,omitempty"`         // why the rung was not fitted
+	Chosen  bool     `json:"chosen"`
+	Flags   []string `json:"flags,omitempty"`
+}
+
 // Params are the tuning parameters of one property. Multiplier 1 and Shift 0 reproduce the
 // published correlation.
 type Params struct {
