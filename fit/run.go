@@ -212,6 +212,8 @@ type RankEntry struct {
 	AARETuned     *float64 `json:"aare_pct_tuned"`
 	Multiplier    *float64 `json:"multiplier"`
 	Shift         *float64 `json:"shift,omitempty"` // multiplier+shift mode only
+	Depth         Depth    `json:"depth"`           // the rung chosen (or forced) for this family
+	AARELOO       *float64 `json:"aare_pct_loo"`    // leave-one-out AARE of that rung, %
 	InRange       bool     `json:"in_range"`
 	Points        int      `json:"points"`
 	Failed        string   `json:"failed,omitempty"` // why the family could not be scored

@@ -65,7 +65,10 @@ const (
 // Options control tuning. The zero value means: one multiplier, relative errors, every point
 // weighted 1, Sutton pseudo-criticals for Z.
 type Options struct {
-	Mode       Mode    // "" = Multiplier
+	// Depth forces a rung of the ladder; "" = the rung with the smallest leave-one-out error
+	// (a deeper rung only when it wins clearly).
+	Depth      Depth
+	Mode       Mode    // "" = Multiplier (older form of Depth: multiplier+shift is the shape rung)
 	Loss       Loss    // "" = Relative
 	HuberDelta float64 // relative error where the Huber loss turns linear; 0 = 0.02
 	// Excluded lists, per property, the indexes (into Problem.Points) of points left out.
