@@ -87,11 +87,11 @@ type Result struct {
 
 // layout says which parameters a rung frees, in the order of the optimiser's coordinates.
 type layout struct {
-	anchor bool // pb: the pressure scale is fixed by the report's Pb
-	mult   bool // a free multiplier (pb without an anchor: a free pressure scale)
-	shift bool  // a free shift
-	exp   bool  // the pb bend
-	coef  []int // indexes of the freed coefficients in the family's declaration
+	anchor bool  // pb: the pressure scale is fixed by the report's Pb
+	mult   bool  // a free multiplier (pb without an anchor: a free pressure scale)
+	shift  bool  // a free shift
+	exp    bool  // the pb bend
+	coef   []int // indexes of the freed coefficients in the family's declaration
 }
 
 func (l layout) size() int {
