@@ -152,8 +152,15 @@ func (pr *problem) ladder(res *Result, force Depth) (*rungFit, error) {
 	nFree := pr.freePoints()
 	var prev []float64 // start of the next rung: the shallower rung's optimum, extended
 	var prevLay layout
+	beyond := false // past a forced depth: deeper rungs are not fitted
 	for i, d := range Depths {
 		r := Rung{Depth: d}
+		if beyond {
+			r.Skipped = fmt.Sprintf("not fitted: depth %s was asked for", force)
+			res.Ladder = append(res.Ladder, r)
+			continue
+		}
+		beyond = d == force
 		l, skip := pr.layoutFor(d)
 		if skip == "" && l.size() > nFree {
 			skip = fmt.Sprintf("%s for %s", plural(nFree, "free point"), plural(l.size(), "parameter"))

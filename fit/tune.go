@@ -443,6 +443,9 @@ func (pr *problem) minimize(x0 []float64, simplex float64) ([]float64, int, erro
 	if len(x0) == 0 {
 		return x0, 1, nil
 	}
+	if x, ok := pr.linear(); ok {
+		return x, 1, nil
+	}
 	settings := &optimize.Settings{
 		FuncEvaluations: nmMaxEvals,
 		Converger:       &optimize.FunctionConverge{Absolute: nmFuncTol, Relative: nmFuncTol, Iterations: nmConvergeIter},
@@ -455,6 +458,50 @@ func (pr *problem) minimize(x0 []float64, simplex float64) ([]float64, int, erro
 		return nil, res.FuncEvaluations, fmt.Errorf("fit: %s: Nelder–Mead ended with %v: %w", pr.prop, res.Status, serr)
 	}
 	return res.X, res.FuncEvaluations, nil
+}
+
+// linear solves a multiplier (and shift) of an affine model with published coefficients and a
+// quadratic loss in closed form: the objective is then a weighted linear least-squares problem
+// in (m, s), and when its optimum lies inside the bounds it is also the optimum of the bounded
+// problem that Nelder–Mead would approach. ok is false when the closed form does not apply or
+// its optimum is outside the bounds (Nelder–Mead then runs on the transformed parameters).
+func (pr *problem) linear() ([]float64, bool) {
+	l := pr.lay
+	if pr.af == nil || pr.loss == Huber || pr.basisErr != nil || !l.mult || l.exp || len(l.coef) > 0 || l.anchor {
+		return nil, false
+	}
+	var sbb, sb, s1, sby, sy float64
+	for i := range pr.pts {
+		if !pr.free(i) {
+			continue
+		}
+		u := pr.w[i] / (pr.scale[i] * pr.scale[i])
+		b, y := pr.b0[i], pr.pts[i].Lab-pr.a0[i]
+		sbb += u * b * b
+		sb += u * b
+		s1 += u
+		sby += u * b * y
+		sy += u * y
+	}
+	q := Params{}
+	if l.shift {
+		det := sbb*s1 - sb*sb
+		if !(math.Abs(det) > 1e-12*sbb*s1) {
+			return nil, false
+		}
+		q.Multiplier = (sby*s1 - sb*sy) / det
+		q.Shift = (sbb*sy - sb*sby) / det
+	} else {
+		if !(sbb > 0) {
+			return nil, false
+		}
+		q.Multiplier = sby / sbb
+	}
+	const inside = 0.999 // the transform cannot reach its bounds exactly
+	if !(q.Multiplier > MinMultiplier/inside && q.Multiplier < MaxMultiplier*inside) || math.Abs(q.Shift) >= inside*pr.shiftMax {
+		return nil, false
+	}
+	return pr.coords(q), true
 }
 
 // interval returns the 95 % half-widths of the free natural parameters at q (layout order).
