@@ -8,10 +8,6 @@ import (
 // 32 (May 1980) 785–795, SPE 8016. 45 North Sea oil samples: Pb 165–7,142 psia, T 80–280 °F,
 // Rsb 90–2,637 scf/STB, 22.3–48.1 °API, γg 0.650–1.276 (ranges from memory).
 
-// glasoLogPbStarMax is log10 of the correlating number at which Glasø's log-quadratic for Pb reaches its
-// maximum (log10 Pb* = 1.7447/(2·0.30218)); above it the fitted Pb falls, so the
-// correlation is only used below it (Pb < about 19,300 psia).
-const glasoLogPbStarMax = 1.7447 / (2 * 0.30218)
 
 // GlasoBubblePoint returns the bubble-point pressure (psia), Glasø (1980), published
 // direction:

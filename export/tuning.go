@@ -226,8 +226,8 @@ func (tf TuningFile) validate() error {
 			}
 			for j, c := range cs {
 				r := q.Coefficients[j] / c.Value
-				if !(r >= fit.MinMultiplier && r <= fit.MaxMultiplier) {
-					return fmt.Errorf("property %q: coefficient %s = %g is outside %g–%g times its published %g", p, c.ID, q.Coefficients[j], fit.MinMultiplier, fit.MaxMultiplier, c.Value)
+				if !(r >= fit.MinCoefficientRatio*0.999999 && r <= fit.MaxCoefficientRatio*1.000001) {
+					return fmt.Errorf("property %q: coefficient %s = %g is outside %g–%g times its published %g", p, c.ID, q.Coefficients[j], fit.MinCoefficientRatio, fit.MaxCoefficientRatio, c.Value)
 				}
 			}
 		}

@@ -99,13 +99,17 @@ func (pr *problem) identifiable(base layout) []int {
 		}
 		return col
 	}
+	// Columns are derivatives of the (relative) residuals by the relative change of a
+	// parameter: a coefficient that matters moves them by 1e-3 or more; a column below
+	// minColumn is round-off.
+	const minColumn = 1e-6
 	var basis [][]float64
 	add := func(col []float64, keepTol float64) bool {
 		if col == nil {
 			return false
 		}
 		norm0 := math.Sqrt(dot(col, col))
-		if norm0 == 0 {
+		if norm0 <= minColumn {
 			return false
 		}
 		v := append([]float64(nil), col...)
@@ -116,7 +120,7 @@ func (pr *problem) identifiable(base layout) []int {
 			}
 		}
 		nv := math.Sqrt(dot(v, v))
-		if nv <= keepTol*norm0 {
+		if nv <= keepTol*norm0 || nv <= minColumn {
 			return false
 		}
 		for i := range v {

@@ -12,11 +12,16 @@ import (
 
 // Multiplier bounds of the smooth transform m = 2^tanh(θ) (DESIGN.md §5), and the range
 // outside which a multiplier is flagged as far from the published correlation. The pb bend
-// and every refitted coefficient (as a ratio to its published value) use the same transform
-// and bounds.
+// uses the same transform and bounds; a refitted coefficient c = c₀·4^tanh(u) stays within a
+// quarter and four times its published value (MinCoefficientRatio, MaxCoefficientRatio), the
+// ridge holding it near c₀.
 const (
-	MinMultiplier  = 0.5
-	MaxMultiplier  = 2.0
+	MinMultiplier = 0.5
+	MaxMultiplier = 2.0
+
+	MinCoefficientRatio = 0.25
+	MaxCoefficientRatio = 4.0
+
 	FlagLowMult    = 0.8
 	FlagHighMult   = 1.25
 	penalty        = 1e30 // objective value where the correlation cannot be evaluated
@@ -291,7 +296,7 @@ func (pr *problem) params(x []float64) (Params, error) {
 		}
 		copy(pr.cbuf, pr.coef0)
 		for _, j := range pr.lay.coef {
-			pr.cbuf[j] = pr.coef0[j] * math.Pow(2, math.Tanh(next()))
+			pr.cbuf[j] = pr.coef0[j] * math.Pow(4, math.Tanh(next()))
 		}
 		q.Coefficients = pr.cbuf
 	}
@@ -319,7 +324,7 @@ func (pr *problem) coords(q Params) []float64 {
 		if q.Coefficients != nil {
 			r = q.Coefficients[j] / pr.coef0[j]
 		}
-		x = append(x, inv(r))
+		x = append(x, math.Atanh(clamp(math.Log(r)/math.Log(4), -0.999999, 0.999999)))
 	}
 	return x
 }
