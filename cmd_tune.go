@@ -323,8 +323,8 @@ Rs(p) stays an exact inverse. DIR may be demo:<id> for a built-in report.`)
 			if res.Shifted {
 				params["shift"], shiftUnit = res.Params.Shift, res.ShiftUnit
 			}
-			if res.Params.Exponent != 0 {
-				params["exponent"] = res.Params.Exponent
+			if res.Params.Bend != 0 {
+				params["bend"] = res.Params.Bend
 			}
 			for j, c := range res.Params.Coefficients {
 				params[res.CoefficientIDs[j]] = c
@@ -366,8 +366,8 @@ func printResult(w io.Writer, res fit.Result) {
 	if res.Shifted {
 		fmt.Fprintf(w, "  shift      %.4g %s  %s\n", res.Params.Shift, res.ShiftUnit, interval(res, "shift", "%.4g"))
 	}
-	if res.Params.Exponent != 0 {
-		fmt.Fprintf(w, "  bend       %.4f  %s  (exponent on Rs/Rsb below Pb)\n", res.Params.Exponent, interval(res, "exponent", "%.4f"))
+	if res.Params.Bend != 0 {
+		fmt.Fprintf(w, "  bend       %.4f  %s  (exponent on Rs/Rsb below Pb)\n", res.Params.Bend, interval(res, "bend", "%.4f"))
 	}
 	if res.Params.Coefficients != nil {
 		pub := fit.DeclaredCoefficients(res.Property, res.Family)

@@ -8,7 +8,6 @@ import (
 // 32 (May 1980) 785–795, SPE 8016. 45 North Sea oil samples: Pb 165–7,142 psia, T 80–280 °F,
 // Rsb 90–2,637 scf/STB, 22.3–48.1 °API, γg 0.650–1.276 (ranges from memory).
 
-
 // GlasoBubblePoint returns the bubble-point pressure (psia), Glasø (1980), published
 // direction:
 //

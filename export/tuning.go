@@ -216,7 +216,7 @@ func (tf TuningFile) validate() error {
 		if tf.FormatVersion == 1 && tf.Options.Mode != "multiplier+shift" && q.Shift != 0 {
 			return fmt.Errorf("property %q: shift %g in mode %q, which has no shift", p, q.Shift, tf.Options.Mode)
 		}
-		if e := q.Exponent; e != 0 && !(e >= fit.MinMultiplier && e <= fit.MaxMultiplier) {
+		if e := q.Bend; e != 0 && !(e >= fit.MinMultiplier && e <= fit.MaxMultiplier) {
 			return fmt.Errorf("property %q: exponent %g outside [%g, %g]", p, e, fit.MinMultiplier, fit.MaxMultiplier)
 		}
 		if q.Coefficients != nil {

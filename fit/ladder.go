@@ -283,6 +283,7 @@ func multiplierFlags(prop PropertyID, q Params, l layout) []string {
 	}
 	m := q.Multiplier
 	switch {
+	case l.anchor && len(l.coef) > 0: // refitted coefficients move the scale with them
 	case l.anchor:
 		if m < FlagLowMult || m > FlagHighMult {
 			fl = append(fl, fmt.Sprintf("the %s %.3f that honours the report's Pb is outside [%g, %g]: the family's bubble point is far from this oil's", name, m, FlagLowMult, FlagHighMult))
@@ -294,7 +295,7 @@ func multiplierFlags(prop PropertyID, q Params, l layout) []string {
 		fl = append(fl, fmt.Sprintf("%s %.3f is outside [%g, %g]: the family describes this oil poorly", name, m, FlagLowMult, FlagHighMult))
 	}
 	if l.exp {
-		e := q.exponent()
+		e := q.bend()
 		if e <= MinMultiplier*1.001 || e >= MaxMultiplier*0.999 {
 			fl = append(fl, fmt.Sprintf("bend exponent %.3f is at its bound [%g, %g]", e, MinMultiplier, MaxMultiplier))
 		}

@@ -93,7 +93,7 @@ func (m pbModel) publishedRs(p float64, c []float64) (float64, error) {
 
 // pb is the tuned bubble point of an oil holding r scf/STB.
 func (m pbModel) pb(q Params, r float64) (float64, error) {
-	if e := q.exponent(); e != 1 && r != m.rsb {
+	if e := q.bend(); e != 1 && r != m.rsb {
 		r = m.rsb * math.Pow(r/m.rsb, 1/e)
 	}
 	v, err := m.publishedPb(r, q.Coefficients)
@@ -110,7 +110,7 @@ func (m pbModel) rs(q Params, p float64) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	if e := q.exponent(); e != 1 && v > 0 {
+	if e := q.bend(); e != 1 && v > 0 {
 		v = m.rsb * math.Pow(v/m.rsb, e)
 	}
 	return v, nil

@@ -134,8 +134,8 @@ func paramValue(q Params, name string, ids []string) float64 {
 		return q.Multiplier
 	case "shift":
 		return q.Shift
-	case "exponent":
-		return q.exponent()
+	case "bend":
+		return q.bend()
 	}
 	for j, id := range ids {
 		if id == name && q.Coefficients != nil {
@@ -229,7 +229,7 @@ func extendStart(pr *problem, from layout, x []float64, to layout) []float64 {
 	q = q.clone()
 	q.Coefficients = nil
 	if !to.exp {
-		q.Exponent = 0
+		q.Bend = 0
 	}
 	pr.lay = to
 	return pr.coords(q)
@@ -237,7 +237,7 @@ func extendStart(pr *problem, from layout, x []float64, to layout) []float64 {
 
 // evaluateFixed evaluates recorded parameters (a tuning file) as the rung they belong to.
 func (pr *problem) evaluateFixed(q Params, d Depth) (*rungFit, error) {
-	l := layout{mult: pr.prop != Pb, shift: q.Shift != 0, exp: q.Exponent != 0}
+	l := layout{mult: pr.prop != Pb, shift: q.Shift != 0, exp: q.Bend != 0}
 	if q.Coefficients != nil {
 		if len(q.Coefficients) != len(pr.coef0) {
 			return nil, fmt.Errorf("fit: %s: %d coefficients recorded, the family declares %d", pr.prop, len(q.Coefficients), len(pr.coef0))

@@ -61,6 +61,9 @@ type Options struct {
 	Depth      Depth
 	Loss       Loss    // "" = Relative
 	HuberDelta float64 // relative error where the Huber loss turns linear; 0 = 0.02
+	// Ridge is the strength λ of the refit depth's pull towards the published coefficients;
+	// 0 = RidgeStrength.
+	Ridge float64
 	// Excluded lists, per property, the indexes (into Problem.Points) of points left out.
 	Excluded map[PropertyID][]int
 	// Weights gives, per property, a weight per point (same length as the points); nil = 1.
@@ -81,6 +84,13 @@ func (o Options) huberDelta() float64 {
 		return 0.02
 	}
 	return o.HuberDelta
+}
+
+func (o Options) ridge() float64 {
+	if o.Ridge <= 0 {
+		return RidgeStrength
+	}
+	return o.Ridge
 }
 
 func (o Options) pseudoCritical() string {
@@ -120,7 +130,7 @@ type Rung struct {
 	Flags   []string `json:"flags,omitempty"`
 }
 
-// Params are the tuning parameters of one property. Multiplier 1, Shift 0, no Exponent and no
+// Params are the tuning parameters of one property. Multiplier 1, Shift 0, no Bend and no
 // Coefficients reproduce the published correlation.
 //
 // For pb the Multiplier is the pressure scale of the pair, Pb_tuned(R) = m·Pb(R') + s and
@@ -131,19 +141,19 @@ type Rung struct {
 type Params struct {
 	Multiplier float64 `json:"multiplier"`
 	Shift      float64 `json:"shift"`
-	// Exponent bends the pb pair (shape depth); 0 means none (1).
-	Exponent float64 `json:"exponent,omitempty"`
+	// Bend is the exponent e that bends the pb pair (shape depth); 0 means none (1).
+	Bend float64 `json:"bend,omitempty"`
 	// Coefficients are the family's declared coefficients, in catalog order (refit depth);
 	// nil means the published values.
 	Coefficients []float64 `json:"coefficients,omitempty"`
 }
 
 // exponent returns the pb bend, 1 when none is set.
-func (q Params) exponent() float64 {
-	if q.Exponent == 0 {
+func (q Params) bend() float64 {
+	if q.Bend == 0 {
 		return 1
 	}
-	return q.Exponent
+	return q.Bend
 }
 
 // clone returns a copy that does not share the coefficient slice.
@@ -181,7 +191,7 @@ type Point struct {
 
 // Resolved returns the options with every default filled in, as the tuner uses them.
 func (o Options) Resolved() Options {
-	o.Loss, o.HuberDelta, o.PseudoCritical = o.loss(), o.huberDelta(), o.pseudoCritical()
+	o.Loss, o.HuberDelta, o.PseudoCritical, o.Ridge = o.loss(), o.huberDelta(), o.pseudoCritical(), o.ridge()
 	return o
 }
 
