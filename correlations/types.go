@@ -114,17 +114,26 @@ type CompressibilityFamily struct {
 	RelativeVolume func(p, pb, rsb float64, o Oil) (float64, error)
 }
 
-// DeadViscosityFamily gives the dead-oil viscosity (cP) at o.Temperature.
+// DeadViscosityFamily gives the dead-oil viscosity (cP) at o.Temperature. A family that
+// declares Coefficients also gives ViscosityWith, the viscosity with other coefficient values;
+// Viscosity is ViscosityWith at the published values.
 type DeadViscosityFamily struct {
 	ID        string
 	Viscosity func(o Oil) (float64, error)
+
+	Coefficients  []Coefficient // declared refit coefficients; nil when the family has none
+	ViscosityWith func(o Oil, c []float64) (float64, error)
 }
 
 // SatViscosityFamily gives the live-oil viscosity (cP) of a saturated oil holding rs scf/STB
-// whose dead-oil viscosity is muDead.
+// whose dead-oil viscosity is muDead. Coefficients and ViscosityWith as for
+// DeadViscosityFamily.
 type SatViscosityFamily struct {
 	ID        string
 	Viscosity func(muDead, rs float64, o Oil) (float64, error)
+
+	Coefficients  []Coefficient // declared refit coefficients; nil when the family has none
+	ViscosityWith func(muDead, rs float64, o Oil, c []float64) (float64, error)
 }
 
 // UnderViscosityFamily gives the viscosity (cP) at p ≥ pb of an oil whose viscosity at its

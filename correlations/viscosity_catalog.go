@@ -65,18 +65,25 @@ func viscosityEntries() []Entry {
 
 var (
 	deadViscosityFamilies = []DeadViscosityFamily{
-		{ID: "beal", Viscosity: BealDeadViscosity},
-		{ID: "beggs-robinson", Viscosity: BeggsRobinsonDeadViscosity},
-		{ID: "glaso", Viscosity: GlasoDeadViscosity},
-		{ID: "egbogah-ng", Viscosity: EgbogahNgDeadViscosity},
-		{ID: "kartoatmodjo-schmidt", Viscosity: KartoatmodjoSchmidtDeadViscosity},
-		{ID: "petrosky-farshad", Viscosity: PetroskyFarshadDeadViscosity},
+		{ID: "beal", Viscosity: BealDeadViscosity, Coefficients: BealDeadCoefficients, ViscosityWith: BealDeadViscosityWith},
+		{ID: "beggs-robinson", Viscosity: BeggsRobinsonDeadViscosity,
+			Coefficients: BeggsRobinsonDeadCoefficients, ViscosityWith: BeggsRobinsonDeadViscosityWith},
+		{ID: "glaso", Viscosity: GlasoDeadViscosity, Coefficients: GlasoDeadCoefficients, ViscosityWith: GlasoDeadViscosityWith},
+		{ID: "egbogah-ng", Viscosity: EgbogahNgDeadViscosity, Coefficients: EgbogahNgCoefficients, ViscosityWith: EgbogahNgDeadViscosityWith},
+		{ID: "kartoatmodjo-schmidt", Viscosity: KartoatmodjoSchmidtDeadViscosity,
+			Coefficients: KartoatmodjoSchmidtDeadCoefficients, ViscosityWith: KartoatmodjoSchmidtDeadViscosityWith},
+		{ID: "petrosky-farshad", Viscosity: PetroskyFarshadDeadViscosity,
+			Coefficients: PetroskyFarshadDeadCoefficients, ViscosityWith: PetroskyFarshadDeadViscosityWith},
 	}
 	satViscosityFamilies = []SatViscosityFamily{
-		{ID: "chew-connally", Viscosity: ChewConnallySatViscosity},
-		{ID: "beggs-robinson", Viscosity: BeggsRobinsonSatViscosity},
-		{ID: "kartoatmodjo-schmidt", Viscosity: KartoatmodjoSchmidtSatViscosity},
-		{ID: "petrosky-farshad", Viscosity: PetroskyFarshadSatViscosity},
+		{ID: "chew-connally", Viscosity: ChewConnallySatViscosity,
+			Coefficients: ChewConnallyCoefficients, ViscosityWith: ChewConnallySatViscosityWith},
+		{ID: "beggs-robinson", Viscosity: BeggsRobinsonSatViscosity,
+			Coefficients: BeggsRobinsonSatCoefficients, ViscosityWith: BeggsRobinsonSatViscosityWith},
+		{ID: "kartoatmodjo-schmidt", Viscosity: KartoatmodjoSchmidtSatViscosity,
+			Coefficients: KartoatmodjoSchmidtSatCoefficients, ViscosityWith: KartoatmodjoSchmidtSatViscosityWith},
+		{ID: "petrosky-farshad", Viscosity: PetroskyFarshadSatViscosity,
+			Coefficients: PetroskyFarshadSatCoefficients, ViscosityWith: PetroskyFarshadSatViscosityWith},
 	}
 	underViscosityFamilies = []UnderViscosityFamily{
 		{ID: "vasquez-beggs", Viscosity: VasquezBeggsUnderViscosity},
