@@ -49,7 +49,7 @@ var SurveyProperties = []PropertyID{Pb, Bo, MuDead, MuSat}
 // mean a much weaker pull on a database scattered by 10 % than on a report measured to 0.3 %.
 // At a report's noise the report tuner's RidgeStrength (2e-4) is this form with τ ≈ 0.2
 // (σ = 0.3 %: λ = 9e-6/0.04 ≈ 2e-4). TestSurveyPriorSpreadChoice documents the choice of 0.2.
-const SurveyPriorSpread = 0.2
+const SurveyPriorSpread = 0.1
 
 // surveyLOOMax: with this many samples or fewer a property is cross-validated leave-one-out.
 const surveyLOOMax = 30
