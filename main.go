@@ -42,6 +42,7 @@ func commands() []command {
 			"labmatch rank DIR [--json]", runRank},
 		{"tune", "tune the chosen families to a report and print parameters and statistics",
 			"labmatch tune DIR [--pb ID ...] [--json] [--save F] [--tuning F]", runTune},
+		{"survey", "rank and tune every family over a regional PVT database, with cross-validation", "labmatch survey FILE [--folds K] [--seed N] [--refit] [--json] [--out F.csv]", runSurvey},
 	}
 }
 

@@ -135,7 +135,7 @@ type SurveyRefit struct {
 	Evals          int                 `json:"evaluations"`  // objective evaluations, all folds
 	// Better: the refit's cross-validated AARE beats the multiplier's by the margins of the
 	// report ladder (10 % and 0.05 points). Overfits: it fits the samples better than the
-	// multiplier but predicts unseen ones worse.
+	// multiplier but predicts unseen ones worse, by 0.05 points or more.
 	Better   bool `json:"better"`
 	Overfits bool `json:"overfits"`
 }
@@ -955,9 +955,11 @@ func (j *surveyJob) refit(sv *lab.Survey, fold int) surveyFit {
 
 // Levenberg–Marquardt settings of the survey refit.
 const (
-	lmMaxIter = 200
-	lmFDStep  = 1e-6  // forward-difference step in the scaled coordinates
-	lmCostTol = 1e-12 // an accepted step that lowers the cost by less than this (relative) ends the fit
+	lmMaxIter    = 200
+	lmFDStep     = 1e-6  // forward-difference step in the scaled coordinates
+	lmGradTol    = 1e-8  // residuals orthogonal to the Jacobian's columns to this cosine: converged
+	lmCostTol    = 1e-12 // an accepted step that lowers the cost by less than this (relative) is small
+	lmSmallSteps = 3     // this many small steps in a row end the fit
 )
 
 // levenbergMarquardt minimises the sum of squares of resid(x) over x ∈ ℝᵏ from x = 0, with
@@ -984,6 +986,7 @@ func levenbergMarquardt(resid func(x, out []float64) bool, k, m int) ([]float64,
 	g := mat.NewVecDense(k, nil)
 	delta := mat.NewVecDense(k, nil)
 	mu, nu := -1.0, 2.0
+	small := 0 // accepted steps in a row that gained less than lmCostTol
 	for iter := 0; iter < lmMaxIter; iter++ {
 		// Jacobian by forward differences.
 		for q := 0; q < k; q++ {
@@ -1008,6 +1011,17 @@ func levenbergMarquardt(resid func(x, out []float64) bool, k, m int) ([]float64,
 		}
 		a.SymOuterK(1, jac.T()) // JᵀJ
 		g.MulVec(jac.T(), mat.NewVecDense(m, r))
+		// Converged when the residuals are orthogonal to every column of the Jacobian to within
+		// lmGradTol (MINPACK's gtol test: the cosine of the angle between r and each column).
+		orthogonal := true
+		for q := 0; q < k; q++ {
+			if n := math.Sqrt(a.At(q, q) * cost); n > 0 && math.Abs(g.AtVec(q)) > lmGradTol*n {
+				orthogonal = false
+			}
+		}
+		if orthogonal {
+			return x, evals, nil
+		}
 		if mu < 0 {
 			maxDiag := 0.0
 			for q := 0; q < k; q++ {
@@ -1058,7 +1072,11 @@ func levenbergMarquardt(resid func(x, out []float64) bool, k, m int) ([]float64,
 				cost = newCost
 				accepted = true
 				if gain <= lmCostTol*cost {
-					return x, evals, nil
+					if small++; small >= lmSmallSteps {
+						return x, evals, nil
+					}
+				} else {
+					small = 0
 				}
 			} else {
 				mu *= nu
@@ -1119,8 +1137,8 @@ func (j *surveyJob) finishRefit(sv *lab.Survey) {
 	for k := range rf.Coefficients {
 		c := &rf.Coefficients[k]
 		c.Refit = full.c[k]
-		c.FoldMin, c.FoldMax = full.c[k], full.c[k]
-		for f := 0; f < j.folds; f++ {
+		c.FoldMin, c.FoldMax = j.folded[0].c[k], j.folded[0].c[k]
+		for f := 1; f < j.folds; f++ {
 			c.FoldMin = math.Min(c.FoldMin, j.folded[f].c[k])
 			c.FoldMax = math.Max(c.FoldMax, j.folded[f].c[k])
 		}
@@ -1132,5 +1150,5 @@ func (j *surveyJob) finishRefit(sv *lab.Survey) {
 	rf.CV = surveyStats(pr.Lab, pr.RefitCV)
 	cvM, cvR := out.CV.AARE, rf.CV.AARE
 	rf.Better = cvR <= (1-chooseRelMargin)*cvM && cvM-cvR >= chooseAbsMargin
-	rf.Overfits = rf.Tuned.AARE < out.Tuned.AARE && cvR > cvM
+	rf.Overfits = rf.Tuned.AARE < out.Tuned.AARE && cvR >= cvM+chooseAbsMargin
 }

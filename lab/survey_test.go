@@ -77,6 +77,7 @@ func TestReadSurveyErrors(t *testing.T) {
 		{"text in a number", surveyHeader + "\nA,200,35,0.8,n/a,2000\n", ErrNumber, 2, 5, "n/a"},
 		{"NaN", surveyHeader + "\nA,200,35,0.8,NaN,2000\n", ErrNotFinite, 2, 5, "finite"},
 		{"ragged", surveyHeader + "\nA,200,35,0.8,500\n", ErrRagged, 2, 0, "expected 6 cells"},
+		{"decimal comma before an empty last column", surveyHeader + ",note\nA,200,35,0.8,500,2000,\nB,200,35,0,8,500,2000,\n", ErrRagged, 3, 0, "decimal comma"},
 		{"semicolons", "sample;temperature [degF];API\nA;200;35\n", ErrSyntax, 1, 0, "semicolon"},
 		{"quote", surveyHeader + "\nA,200,35,0.8,500,\"2000\n", ErrSyntax, 2, 0, ""},
 		{"latin-1", "sample,temperature [\xb0F],API,gas gravity,Rsb [scf/STB],Pb [psia]\nA,200,35,0.8,500,2000\n", ErrSyntax, 1, 0, "UTF-8"},
@@ -169,6 +170,10 @@ func TestReadSurveyFile(t *testing.T) {
 	}
 	if _, err := ReadSurvey(t.TempDir()); !errors.Is(err, ErrMissingFile) || !strings.Contains(err.Error(), "folder") {
 		t.Errorf("a folder: %v", err)
+	}
+	// A spreadsheet's padding, alike on every row, is accepted.
+	if sv, err := ParseSurvey("db.csv", []byte(surveyHeader+",,\nA,200,35,0.8,500,2000,,\nB,210,35,0.8,500,2100,,\n")); err != nil || len(sv.Samples) != 2 {
+		t.Errorf("padded rows: %v", err)
 	}
 	p := filepath.Join(t.TempDir(), "db.csv")
 	if err := os.WriteFile(p, []byte("\xef\xbb\xbf"+surveyHeader+"\r\nA,200,35,0.8,500,2000\r\n"), 0o644); err != nil {
