@@ -42,6 +42,8 @@ func commands() []command {
 			"labmatch rank DIR [--json]", runRank},
 		{"tune", "tune the chosen families to a report and print parameters and statistics",
 			"labmatch tune DIR [--pb ID ...] [--json] [--save F] [--tuning F]", runTune},
+		{"tables", "black-oil tables (CSV, or a simulator deck) from the tuned model",
+			"labmatch tables DIR|TUNING_FILE [--format csv|deck] [--units field|metric] [--out F]", runTables},
 	}
 }
 

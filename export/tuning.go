@@ -28,6 +28,9 @@ type TuningFile struct {
 	Options       TuningOptions             `json:"options"`
 	Properties    map[string]PropertyTuning `json:"properties"`
 	Notes         []string                  `json:"notes,omitempty"`
+	// Fluid is the report's fluid description, so that tables can be made from the file
+	// alone; absent in files written before it was added.
+	Fluid *FluidRecord `json:"fluid,omitempty"`
 }
 
 // TuningOptions are the options the tuning ran with.
@@ -41,6 +44,7 @@ type TuningOptions struct {
 // PropertyTuning is the tuned state of one property.
 type PropertyTuning struct {
 	Family     string                `json:"family"`
+	Depth      fit.Depth             `json:"depth,omitempty"`
 	Parameters fit.Params            `json:"parameters"`
 	ShiftUnit  string                `json:"shift_unit"`
 	CI95       map[string][2]float64 `json:"ci95,omitempty"`
@@ -63,8 +67,12 @@ func NewTuningFile(tool string, r *lab.Report, results map[fit.PropertyID]fit.Re
 		if ex == nil {
 			ex = []int{}
 		}
-		tf.Properties[string(p)] = PropertyTuning{Family: res.Family, Parameters: res.Params, ShiftUnit: res.ShiftUnit, CI95: res.CI95,
+		tf.Properties[string(p)] = PropertyTuning{Family: res.Family, Depth: res.Depth, Parameters: res.Params, ShiftUnit: res.ShiftUnit, CI95: res.CI95,
 			CIAssumed: res.CIAssumed, Published: res.Published, Tuned: res.Tuned, Excluded: ex, Flags: res.Flags, OutOfRange: res.OutOfRange}
+	}
+	if ds, err := fit.NewDataset(r); err == nil {
+		f := NewFluidRecord(ds, r)
+		tf.Fluid = &f
 	}
 	return tf
 }
@@ -85,7 +93,7 @@ func (tf TuningFile) FitOptions() fit.Options {
 func (tf TuningFile) Results() map[fit.PropertyID]fit.Result {
 	out := map[fit.PropertyID]fit.Result{}
 	for p, pt := range tf.Properties {
-		out[fit.PropertyID(p)] = fit.Result{Property: fit.PropertyID(p), Family: pt.Family, Params: pt.Parameters, ShiftUnit: pt.ShiftUnit,
+		out[fit.PropertyID(p)] = fit.Result{Property: fit.PropertyID(p), Family: pt.Family, Depth: pt.Depth, Params: pt.Parameters, ShiftUnit: pt.ShiftUnit,
 			CI95: pt.CI95, Published: pt.Published, Tuned: pt.Tuned, Excluded: pt.Excluded, Flags: pt.Flags, OutOfRange: pt.OutOfRange}
 	}
 	return out
@@ -147,6 +155,11 @@ func (tf TuningFile) validate() error {
 	default:
 		return fmt.Errorf("options: pseudo_critical %q, want sutton or standing", tf.Options.PseudoCritical)
 	}
+	if tf.Fluid != nil {
+		if err := tf.Fluid.validate(); err != nil {
+			return err
+		}
+	}
 	keys := make([]string, 0, len(tf.Properties))
 	for p := range tf.Properties {
 		keys = append(keys, p)
@@ -161,6 +174,9 @@ func (tf TuningFile) validate() error {
 		if !slices.Contains(fams, pt.Family) {
 			return fmt.Errorf("property %q: unknown family %q (known: %v)", p, pt.Family, fams)
 		}
+		if pt.Depth != "" && !slices.Contains(fit.Depths, pt.Depth) {
+			return fmt.Errorf("property %q: depth %q, want one of %v", p, pt.Depth, fit.Depths)
+		}
 		m := pt.Parameters.Multiplier
 		if !(m >= fit.MinMultiplier && m <= fit.MaxMultiplier) {
 			return fmt.Errorf("property %q: multiplier %g outside [%g, %g]", p, m, fit.MinMultiplier, fit.MaxMultiplier)
@@ -173,4 +189,20 @@ func (tf TuningFile) validate() error {
 		}
 	}
 	return nil
+}
+
+// ErrNoFluid means a tuning file lacks the fluid record that tables need without the report.
+var ErrNoFluid = errors.New("export: the tuning file has no fluid record (written by an older labmatch); give the report folder with --tuning")
+
+// Model builds the tuned model from the tuning file alone, from its fluid record.
+func (tf TuningFile) Model() (*fit.Model, *fit.Dataset, error) {
+	if tf.Fluid == nil {
+		return nil, nil, ErrNoFluid
+	}
+	ds := tf.Fluid.Dataset(tf.Report)
+	m, err := fit.NewModel(ds, tf.Results(), tf.FitOptions())
+	if err != nil {
+		return nil, nil, fmt.Errorf("export: tuning file: %w", err)
+	}
+	return m, ds, nil
 }
