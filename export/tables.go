@@ -208,6 +208,7 @@ func saturatedRow(m *fit.Model, p float64) (SatRow, error) {
 	if err != nil {
 		return SatRow{}, fmt.Errorf("export: tables: saturated row at %.6g psia: %w", p, err)
 	}
+	s.Pressure = p // the solution's bubble point agrees with p to 1e-11
 	return SatRow{State: s, Extrapolated: true}, nil
 }
 
