@@ -109,23 +109,29 @@ func rngCo(api0, api1, gg0, gg1, t0, t1, rs0, rs1 float64) []Range {
 
 var (
 	solutionGasFamilies = []SolutionGasFamily{
-		{ID: "standing", BubblePoint: StandingBubblePoint, SolutionGOR: StandingSolutionGOR},
-		{ID: "vasquez-beggs", BubblePoint: VasquezBeggsBubblePoint, SolutionGOR: VasquezBeggsSolutionGOR},
-		{ID: "glaso", BubblePoint: GlasoBubblePoint, SolutionGOR: GlasoSolutionGOR},
-		{ID: "al-marhoun", BubblePoint: AlMarhounBubblePoint, SolutionGOR: AlMarhounSolutionGOR},
-		{ID: "petrosky-farshad", BubblePoint: PetroskyFarshadBubblePoint, SolutionGOR: PetroskyFarshadSolutionGOR},
-		{ID: "kartoatmodjo-schmidt", BubblePoint: KartoatmodjoSchmidtBubblePoint, SolutionGOR: KartoatmodjoSchmidtSolutionGOR},
+		{ID: "standing", BubblePoint: StandingBubblePoint, SolutionGOR: StandingSolutionGOR,
+			Coefficients: StandingCoefficients, BubblePointWith: StandingBubblePointWith, SolutionGORWith: StandingSolutionGORWith},
+		{ID: "vasquez-beggs", BubblePoint: VasquezBeggsBubblePoint, SolutionGOR: VasquezBeggsSolutionGOR,
+			Coefficients: VasquezBeggsCoefficients, BubblePointWith: VasquezBeggsBubblePointWith, SolutionGORWith: VasquezBeggsSolutionGORWith},
+		{ID: "glaso", BubblePoint: GlasoBubblePoint, SolutionGOR: GlasoSolutionGOR,
+			Coefficients: GlasoCoefficients, BubblePointWith: GlasoBubblePointWith, SolutionGORWith: GlasoSolutionGORWith},
+		{ID: "al-marhoun", BubblePoint: AlMarhounBubblePoint, SolutionGOR: AlMarhounSolutionGOR,
+			Coefficients: AlMarhounCoefficients, BubblePointWith: AlMarhounBubblePointWith, SolutionGORWith: AlMarhounSolutionGORWith},
+		{ID: "petrosky-farshad", BubblePoint: PetroskyFarshadBubblePoint, SolutionGOR: PetroskyFarshadSolutionGOR,
+			Coefficients: PetroskyFarshadCoefficients, BubblePointWith: PetroskyFarshadBubblePointWith, SolutionGORWith: PetroskyFarshadSolutionGORWith},
+		{ID: "kartoatmodjo-schmidt", BubblePoint: KartoatmodjoSchmidtBubblePoint, SolutionGOR: KartoatmodjoSchmidtSolutionGOR,
+			Coefficients: KartoatmodjoSchmidtCoefficients, BubblePointWith: KartoatmodjoSchmidtBubblePointWith, SolutionGORWith: KartoatmodjoSchmidtSolutionGORWith},
 		{ID: "lasater", BubblePoint: LasaterBubblePoint, SolutionGOR: LasaterSolutionGOR},
 		{ID: "valko-mccain", BubblePoint: ValkoMcCainBubblePoint, SolutionGOR: ValkoMcCainSolutionGOR},
 	}
 
 	oilFVFFamilies = []OilFVFFamily{
-		{ID: "standing", FVF: StandingOilFVF},
+		{ID: "standing", FVF: StandingOilFVF, Coefficients: StandingFVFCoefficients, FVFWith: StandingOilFVFWith},
 		{ID: "vasquez-beggs", FVF: VasquezBeggsOilFVF},
-		{ID: "glaso", FVF: GlasoOilFVF},
-		{ID: "al-marhoun", FVF: AlMarhounOilFVF},
-		{ID: "petrosky-farshad", FVF: PetroskyFarshadOilFVF},
-		{ID: "kartoatmodjo-schmidt", FVF: KartoatmodjoSchmidtOilFVF},
+		{ID: "glaso", FVF: GlasoOilFVF, Coefficients: GlasoFVFCoefficients, FVFWith: GlasoOilFVFWith},
+		{ID: "al-marhoun", FVF: AlMarhounOilFVF, Coefficients: AlMarhounFVFCoefficients, FVFWith: AlMarhounOilFVFWith},
+		{ID: "petrosky-farshad", FVF: PetroskyFarshadOilFVF, Coefficients: PetroskyFarshadFVFCoefficients, FVFWith: PetroskyFarshadOilFVFWith},
+		{ID: "kartoatmodjo-schmidt", FVF: KartoatmodjoSchmidtOilFVF, Coefficients: KartoatmodjoSchmidtFVFCoefficients, FVFWith: KartoatmodjoSchmidtOilFVFWith},
 		{ID: "mccain-density", FVF: McCainOilFVF},
 	}
 

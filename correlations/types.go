@@ -63,12 +63,36 @@ type Entry struct {
 	Convention string   // input convention the correlation assumes, if any
 }
 
+// Coefficient is one published constant of a family that the refit depth may change. A
+// family declares its coefficients beside its functions; its With functions take a value for
+// each, in the declared order.
+type Coefficient struct {
+	ID    string  // short name, unique within the family: "offset", "c2_light"
+	Value float64 // the published value
+	Role  string  // where it sits in the published equation, for the user
+}
+
+// Published returns the published values of a coefficient list, in order.
+func Published(cs []Coefficient) []float64 {
+	v := make([]float64, len(cs))
+	for i, c := range cs {
+		v[i] = c.Value
+	}
+	return v
+}
+
 // SolutionGasFamily is a mutually consistent pair: BubblePoint(Rsb) and its exact inverse
-// SolutionGOR(p) for p at or below the bubble point.
+// SolutionGOR(p) for p at or below the bubble point. A family that declares Coefficients
+// also gives the pair with other coefficient values (BubblePointWith, SolutionGORWith, still an
+// exact inverse pair); the plain functions are the With functions at the published values.
 type SolutionGasFamily struct {
 	ID          string
 	BubblePoint func(rsb float64, o Oil) (float64, error) // psia
 	SolutionGOR func(p float64, o Oil) (float64, error)   // scf/STB
+
+	Coefficients    []Coefficient
+	BubblePointWith func(rsb float64, o Oil, c []float64) (float64, error)
+	SolutionGORWith func(p float64, o Oil, c []float64) (float64, error)
 }
 
 // OilFVFFamily gives the saturated oil formation volume factor (rb/STB) of oil holding rs
@@ -76,6 +100,9 @@ type SolutionGasFamily struct {
 type OilFVFFamily struct {
 	ID  string
 	FVF func(p, rs float64, o Oil) (float64, error)
+
+	Coefficients []Coefficient // declared refit coefficients; nil when the family has none
+	FVFWith      func(p, rs float64, o Oil, c []float64) (float64, error)
 }
 
 // CompressibilityFamily gives the isothermal oil compressibility (1/psi) at p for an oil

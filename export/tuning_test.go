@@ -6,6 +6,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"reflect"
 	"strings"
 	"testing"
 
@@ -73,7 +74,7 @@ func TestTuningFileRoundTrip(t *testing.T) {
 				t.Fatal(err)
 			}
 			for p, rr := range again {
-				if rr.Params != res[p].Params {
+				if !reflect.DeepEqual(rr.Params, res[p].Params) {
 					t.Errorf("%s: re-tuned %+v, recorded %+v", p, rr.Params, res[p].Params)
 				}
 			}
