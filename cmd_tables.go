@@ -1,6 +1,7 @@
 package main
 
 import (
+	"errors"
 	"flag"
 	"fmt"
 	"io"
@@ -188,8 +189,7 @@ salinity 30000 ppm (3 wt %); output to standard output.`)
 	if *out == "" {
 		data, err := export.RenderTable(t, f, u)
 		if err != nil {
-			fmt.Fprintln(stderr, err)
-			return exitData
+			return tablesError(err, pos[0], stderr)
 		}
 		if _, err := stdout.Write(data); err != nil {
 			fmt.Fprintln(stderr, "labmatch:", err)
@@ -198,8 +198,7 @@ salinity 30000 ppm (3 wt %); output to standard output.`)
 		return exitOK
 	}
 	if err := export.SaveTable(*out, t, f, u, *force); err != nil {
-		fmt.Fprintln(stderr, err)
-		return exitData
+		return tablesError(err, pos[0], stderr)
 	}
 	branch := 0
 	for _, r := range t.Rows {
@@ -265,4 +264,14 @@ func splitNumber(s string) (float64, string, error) {
 		}
 	}
 	return 0, "", fmt.Errorf("%q is not a number", s)
+}
+
+// tablesError reports a failed table export; a deck refused for a simulator rule gets a hint
+// on what to change.
+func tablesError(err error, arg string, stderr io.Writer) int {
+	fmt.Fprintln(stderr, err)
+	if errors.Is(err, export.ErrRule) {
+		fmt.Fprintf(stderr, "hint: the tuned model, not the table, breaks the rule: tune the property named above at a shallower depth or with another family, save it and make the deck from that tuning, e.g.\n  labmatch tune %s --depth multiplier --save tuning.json\n  labmatch tables %s --tuning tuning.json --format deck\n", arg, arg)
+	}
+	return exitData
 }

@@ -28,6 +28,8 @@ type PropertySource struct {
 	Shifted   bool   // the parameters include a shift
 	ShiftUnit string // unit of Params.Shift
 	Untuned   bool   // no lab data: a published default family
+	// CoefficientIDs name Params.Coefficients (refit depth).
+	CoefficientIDs []string
 }
 
 // NewSource describes a model built from results (fit.NewModel), in fit.Properties order.
@@ -37,6 +39,7 @@ func NewSource(tool, report, fingerprint, origin string, m *fit.Model, results m
 		ps := PropertySource{Property: p, Family: m.Families[p], Params: m.Params[p]}
 		if r, ok := results[p]; ok {
 			ps.Depth, ps.Shifted, ps.ShiftUnit = r.Depth, r.Shifted || r.Params.Shift != 0, r.ShiftUnit
+			ps.CoefficientIDs = r.CoefficientIDs
 		} else {
 			ps.Untuned = true
 		}
@@ -69,9 +72,35 @@ func (p PropertySource) Describe() string {
 	if depth == "" {
 		depth = "n/a"
 	}
-	s := fmt.Sprintf("%-8s %s, depth %s, multiplier %.6g", p.Property, p.Family, depth, p.Params.Multiplier)
+	q := p.Params
+	s := fmt.Sprintf("%-8s %s, depth %s, ", p.Property, p.Family, depth)
+	if p.Property == fit.Pb && p.Depth != "" && p.Depth != fit.DepthPublished {
+		s += fmt.Sprintf("pressure scale %.6g (fixed by the report's Pb)", q.Multiplier)
+	} else {
+		s += fmt.Sprintf("multiplier %.6g", q.Multiplier)
+	}
 	if p.Shifted {
-		s += fmt.Sprintf(", shift %.6g %s", p.Params.Shift, p.ShiftUnit)
+		s += fmt.Sprintf(", shift %.6g %s", q.Shift, p.ShiftUnit)
+	}
+	if q.Bend != 0 {
+		s += fmt.Sprintf(", bend %.6g", q.Bend)
+	}
+	if q.Coefficients != nil {
+		pub := fit.DeclaredCoefficients(p.Property, p.Family)
+		for j, c := range q.Coefficients {
+			if j < len(pub) && c == pub[j].Value {
+				continue
+			}
+			id := fmt.Sprintf("c%d", j+1)
+			if j < len(p.CoefficientIDs) {
+				id = p.CoefficientIDs[j]
+			}
+			if j < len(pub) {
+				s += fmt.Sprintf(", %s %.6g (published %.6g)", id, c, pub[j].Value)
+			} else {
+				s += fmt.Sprintf(", %s %.6g", id, c)
+			}
+		}
 	}
 	return s
 }

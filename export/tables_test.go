@@ -559,3 +559,36 @@ func fieldAt(line, keyword string) string {
 	}
 	return f[0]
 }
+
+func TestDeckRefusesPublishedDefault(t *testing.T) {
+	// The published report tuned at its default depths: co (petrosky-farshad, shape depth)
+	// has a shift of about −4.5e−6 1/psi, so the tuned co of the low-Rs oils turns negative
+	// and their undersaturated Bo rises with pressure. The deck is refused at that row.
+	r, err := lab.ReadFolder(filepath.Join("..", "testdata", "published", "good-oil-well-4"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	ds, err := fit.NewDataset(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := fit.TuneAll(ds, nil, fit.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if q := res[fit.Co].Params; !(q.Shift < 0) {
+		t.Skipf("co shift %g: the tuning no longer gives the negative shift this test is about", q.Shift)
+	}
+	m, err := fit.NewModel(ds, res, fit.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	tab, err := BuildTable(m, NewSource("labmatch test", ds.Name, r.Fingerprint, "", m, res), TableOptions{MaxLabPressure: MaxLabPressure(r)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var re *RuleError
+	if err := WriteDeck(&bytes.Buffer{}, tab, Field); !errors.As(err, &re) || re.Record != 1 || !strings.Contains(re.Reason, "Bo must fall") || !strings.Contains(re.Reason, "co family") {
+		t.Errorf("published report at default depths: %v, want a refusal in PVTO record 1 naming the co family", err)
+	}
+}
