@@ -44,6 +44,8 @@ func commands() []command {
 			"labmatch tune DIR [--pb ID ...] [--json] [--save F] [--tuning F]", runTune},
 		{"tables", "black-oil tables (CSV, or a simulator deck) from the tuned model",
 			"labmatch tables DIR|TUNING_FILE [--format csv|deck] [--units field|metric] [--out F]", runTables},
+		{"report", "a self-contained HTML report with SVG plots",
+			"labmatch report DIR [--tuning F] [--out F.html]", runReport},
 	}
 }
 
