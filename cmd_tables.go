@@ -115,6 +115,10 @@ DIR (or demo:<id>) is tuned afresh with the best-ranked families and default opt
 takes the families and parameters of --tuning F; a TUNING_FILE alone (written by
 tune --save) also works.
 
+Formation water from published correlations at reservoir temperature: McCain's Bw and
+viscosity, Osif's compressibility, McCain's surface density; the deck's water table (PVTW)
+is referred to the tuned Pb.
+
 --format csv: one CSV file with "name [unit]" headers, as in report files.
 --format deck: an include file for the PROPS section of a black-oil deck (PVTO, PVDG, PVTW,
 DENSITY) in FIELD or METRIC units; the writer refuses a table that breaks a rule the
@@ -123,8 +127,8 @@ simulator enforces and names the row.
 Defaults: --pmax the larger of 1.5·Pb and the highest lab pressure; 30 saturated pressures;
 salinity 30000 ppm (3 wt %); output to standard output.`)
 	tuning := fs.String("tuning", "", "use the families and parameters of tuning file `F` (with DIR)")
-	format := fs.String("format", "csv", "`layout`: csv or deck")
-	units := fs.String("units", "field", "`system`: field (psia, scf/STB, rb/STB) or metric (bara, sm3/sm3, m3/sm3)")
+	format := fs.String("format", "csv", "file `layout`: csv (a table with name [unit] headers) or deck (a PROPS include file)")
+	units := fs.String("units", "field", "unit `system`: field (psia, scf/STB, rb/STB; deck FIELD) or metric (bara, sm3/sm3, m3/sm3; deck METRIC)")
 	pmax := fs.String("pmax", "", "highest saturated `pressure`, e.g. 6000psia or 400bara (default: the larger of 1.5·Pb and the highest lab pressure)")
 	step := fs.String("step", "", "`spacing` of the saturated pressures, e.g. 250psi or 20bar (default: --points)")
 	points := fs.Int("points", export.DefaultPoints, "`number` of evenly spaced saturated pressures from atmospheric to --pmax; Pb is added")

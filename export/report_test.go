@@ -27,7 +27,6 @@ type htmlFacts struct {
 	svgs, scripts, external []string
 	text                    strings.Builder
 	ids                     map[string]bool
-	svgIDs                  []string // id of the section around each SVG
 }
 
 func walkHTML(n *html.Node, f *htmlFacts, section string) {
