@@ -79,6 +79,21 @@ func (w *deckWriter) printf(format string, a ...any) {
 
 func (w *deckWriter) comment(s string) { w.printf("-- %s", s) }
 
+// cells writes one data line: each cell right-aligned in 12 columns after two spaces, then
+// the end (" /" or "").
+func (w *deckWriter) cells(end string, cs ...string) {
+	for _, c := range cs {
+		w.b.WriteString("  ")
+		for n := len(c); n < 12; n++ {
+			w.b.WriteByte(' ')
+		}
+		w.b.WriteString(c)
+	}
+	w.b.WriteString(end)
+	w.b.WriteByte('\n')
+	w.line++
+}
+
 // cell formats a value for the deck and returns the number as written.
 func cell(v float64) (string, float64) {
 	s := num(v, deckDigits)
@@ -127,8 +142,8 @@ func WriteDeck(w io.Writer, t *Table, u Units) error {
 		boS, bo := cell(c.to(lab.FVF, r.Bo))
 		muS, mu := cell(c.to(lab.Viscosity, r.OilViscosity))
 		row++
-		where := fmt.Sprintf("Rs %s %s, P %s %s, Bo %s %s, viscosity %s %s", rsS, du.rsUnit, pS, du.pUnit, boS, du.fvfUnit, muS, du.muUnit)
 		fail := func(reason string) error {
+			where := fmt.Sprintf("Rs %s %s, P %s %s, Bo %s %s, viscosity %s %s", rsS, du.rsUnit, pS, du.pUnit, boS, du.fvfUnit, muS, du.muUnit)
 			return &RuleError{Keyword: "PVTO", Record: i + 1, Row: row, Line: dw.line + 1, Where: where, Reason: reason}
 		}
 		switch {
@@ -146,15 +161,15 @@ func WriteDeck(w io.Writer, t *Table, u Units) error {
 		if len(r.Branch) == 0 {
 			end = " /"
 		}
-		dw.printf("  %12s  %12s  %12s  %12s%s", rsS, pS, boS, muS, end)
+		dw.cells(end, rsS, pS, boS, muS)
 		bp, bb, bm := p, bo, mu
 		for k, s := range r.Branch {
 			spS, sp := cell(c.to(lab.Pressure, s.Pressure))
 			sbS, sb := cell(c.to(lab.FVF, s.Bo))
 			smS, sm := cell(c.to(lab.Viscosity, s.OilViscosity))
 			row++
-			where := fmt.Sprintf("Rs %s %s, P %s %s, Bo %s %s, viscosity %s %s (undersaturated)", rsS, du.rsUnit, spS, du.pUnit, sbS, du.fvfUnit, smS, du.muUnit)
 			fail := func(reason string) error {
+				where := fmt.Sprintf("Rs %s %s, P %s %s, Bo %s %s, viscosity %s %s (undersaturated)", rsS, du.rsUnit, spS, du.pUnit, sbS, du.fvfUnit, smS, du.muUnit)
 				return &RuleError{Keyword: "PVTO", Record: i + 1, Row: row, Line: dw.line + 1, Where: where, Reason: reason}
 			}
 			switch {
@@ -170,7 +185,7 @@ func WriteDeck(w io.Writer, t *Table, u Units) error {
 			if k == len(r.Branch)-1 {
 				end = " /"
 			}
-			dw.printf("  %12s  %12s  %12s  %12s%s", "", spS, sbS, smS, end)
+			dw.cells(end, "", spS, sbS, smS)
 		}
 	}
 	dw.printf("/")
@@ -184,8 +199,8 @@ func WriteDeck(w io.Writer, t *Table, u Units) error {
 		pS, p := cell(c.to(lab.Pressure, g.Pressure))
 		bgS, bg := cell(c.to(lab.GasFVF, g.Bg))
 		muS, mu := cell(c.to(lab.Viscosity, g.Viscosity))
-		where := fmt.Sprintf("P %s %s, Bg %s %s, viscosity %s %s", pS, du.pUnit, bgS, du.bgUnit, muS, du.muUnit)
 		fail := func(reason string) error {
+			where := fmt.Sprintf("P %s %s, Bg %s %s, viscosity %s %s", pS, du.pUnit, bgS, du.bgUnit, muS, du.muUnit)
 			return &RuleError{Keyword: "PVDG", Row: i + 1, Line: dw.line + 1, Where: where, Reason: reason}
 		}
 		switch {
@@ -197,7 +212,7 @@ func WriteDeck(w io.Writer, t *Table, u Units) error {
 			return fail(fmt.Sprintf("Bg is not below the previous row's %s %s: Bg must fall as pressure rises (the tuned z family %s)", num(prevBg, deckDigits), du.bgUnit, familyOf(t, "z")))
 		}
 		prevGP, prevBg = p, bg
-		dw.printf("  %12s  %12s  %12s", pS, bgS, muS)
+		dw.cells("", pS, bgS, muS)
 	}
 	dw.printf("/")
 	dw.comment("")

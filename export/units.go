@@ -32,20 +32,37 @@ func (u Units) set() lab.UnitSet {
 	return lab.FieldUnits()
 }
 
-// converter turns field values into the units of a unit set and keeps the first error.
+// converter turns field values into the units of a unit set and keeps the first error. The
+// conversions are affine; their coefficients are looked up once per quantity.
 type converter struct {
 	units lab.UnitSet
 	err   error
+	coef  map[lab.Quantity][2]float64
 }
 
 func (c *converter) unit(q lab.Quantity) string { return c.units.Unit(q) }
 
 func (c *converter) to(q lab.Quantity, v float64) float64 {
-	out, err := lab.FromField(q, c.units.Unit(q), v)
-	if err != nil && c.err == nil {
-		c.err = err
+	k, ok := c.coef[q]
+	if !ok {
+		a, err := lab.FromField(q, c.units.Unit(q), 0)
+		b, err1 := lab.FromField(q, c.units.Unit(q), 1)
+		if err == nil {
+			err = err1
+		}
+		if err != nil && c.err == nil {
+			c.err = err
+		}
+		k = [2]float64{a, b - a}
+		if c.coef == nil {
+			c.coef = map[lab.Quantity][2]float64{}
+		}
+		c.coef[q] = k
 	}
-	return out
+	if k[1] == 1 && k[0] == 0 {
+		return v
+	}
+	return k[0] + k[1]*v
 }
 
 // num formats a number with d significant digits, the shortest way ("0.62", "1.2345e-05").
