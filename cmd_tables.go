@@ -65,15 +65,11 @@ func loadTuned(arg, tuning string, force, allowFile bool, stderr io.Writer) (*tu
 		}
 		tf.opts = file.FitOptions()
 		stored := file.Results()
-		if tf.results, err = fit.Apply(ds, stored, tf.opts); err != nil {
+		applied, err := fit.Apply(ds, stored, tf.opts)
+		if err != nil {
 			return fail(err)
 		}
-		for p, res := range tf.results {
-			if res.Depth == "" {
-				res.Depth = stored[p].Depth
-				tf.results[p] = res
-			}
-		}
+		tf.results = export.WithRecorded(applied, stored)
 		origin = "from the tuning file " + tuning
 	} else {
 		var err error

@@ -120,7 +120,8 @@ func headerLines(t *Table, c *converter) []string {
 	pu := c.unit(lab.Pressure)
 	lines := append([]string{"black-oil tables at reservoir temperature"}, t.Source.Lines()...)
 	lines = append(lines,
-		fmt.Sprintf("reservoir temperature %.6g degF; standard conditions %.6g psia, %.6g degF", t.Temperature, t.StdPressure, t.StdTemp),
+		fmt.Sprintf("reservoir temperature %.6g %s; standard conditions %.6g %s, %.6g %s", c.to(lab.Temperature, t.Temperature), c.unit(lab.Temperature),
+			c.to(lab.Pressure, t.StdPressure), pu, c.to(lab.Temperature, t.StdTemp), c.unit(lab.Temperature)),
 		fmt.Sprintf("tuned bubble point %.6g %s at Rs %.6g %s, Bo %.6g %s", c.to(lab.Pressure, t.Pb), pu,
 			c.to(lab.GOR, t.Rsb), c.unit(lab.GOR), c.to(lab.FVF, t.Bob), c.unit(lab.FVF)),
 		fmt.Sprintf("saturated rows from %.6g to %.6g %s; rows above the tuned Pb are extrapolated: oils with more gas than the report's, from the tuned solution-gas pair continued",

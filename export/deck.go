@@ -56,11 +56,11 @@ type deckUnits struct {
 
 func newDeckUnits(u Units) deckUnits {
 	if u == Metric {
-		s := lab.UnitSet{Pressure: "bara", GOR: "sm3/sm3", FVF: "m3/sm3", GasFVF: "m3/sm3", Viscosity: "cP", Density: "kg/m3", Compressibility: "1/bar"}
+		s := lab.UnitSet{Pressure: "bara", Temperature: "degC", GOR: "sm3/sm3", FVF: "m3/sm3", GasFVF: "m3/sm3", Viscosity: "cP", Density: "kg/m3", Compressibility: "1/bar"}
 		return deckUnits{keyword: "METRIC", c: &converter{units: s}, rsScale: 1, rsUnit: "sm3/sm3", bgUnit: "rm3/sm3",
 			fvfUnit: "rm3/sm3", pUnit: "bara", cUnit: "1/bar", rhoUnit: "kg/m3", muUnit: "cP"}
 	}
-	s := lab.UnitSet{Pressure: "psia", GOR: "scf/STB", FVF: "rb/STB", GasFVF: "rb/Mscf", Viscosity: "cP", Density: "lbm/ft3", Compressibility: "1/psi"}
+	s := lab.UnitSet{Pressure: "psia", Temperature: "degF", GOR: "scf/STB", FVF: "rb/STB", GasFVF: "rb/Mscf", Viscosity: "cP", Density: "lbm/ft3", Compressibility: "1/psi"}
 	return deckUnits{keyword: "FIELD", c: &converter{units: s}, rsScale: 1e-3, rsUnit: "Mscf/STB", bgUnit: "rb/Mscf",
 		fvfUnit: "rb/STB", pUnit: "psia", cUnit: "1/psi", rhoUnit: "lb/ft3", muUnit: "cP"}
 }

@@ -187,3 +187,29 @@ func MaxLabPressure(r *lab.Report) float64 {
 	}
 	return p
 }
+
+// WithRecorded completes results evaluated at recorded parameters (fit.Apply on a loaded
+// tuning file) with what the file recorded of the tuning itself and Apply does not redo: the
+// depth, the ladder with its leave-one-out errors and the no-fit remark.
+func WithRecorded(applied, stored map[fit.PropertyID]fit.Result) map[fit.PropertyID]fit.Result {
+	for p, r := range applied {
+		s, ok := stored[p]
+		if !ok || s.Family != r.Family {
+			continue
+		}
+		if r.Depth == "" {
+			r.Depth = s.Depth
+		}
+		if r.Ladder == nil {
+			r.Ladder = s.Ladder
+		}
+		if r.LOO == nil {
+			r.LOO = s.LOO
+		}
+		if r.NoFit == "" {
+			r.NoFit = s.NoFit
+		}
+		applied[p] = r
+	}
+	return applied
+}
