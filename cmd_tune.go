@@ -380,7 +380,9 @@ func printResult(w io.Writer, res fit.Result) {
 		}
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  depth\tparameters\tAARE %\tmax |RE| %\tleave-one-out AARE %\t")
+	if len(res.Ladder) > 0 {
+		fmt.Fprintln(tw, "  depth\tparameters\tAARE %\tmax |RE| %\tleave-one-out AARE %\t")
+	}
 	for _, r := range res.Ladder {
 		mark := ""
 		if r.Chosen {

@@ -279,7 +279,8 @@ func TuneAll(ds *Dataset, choice Choice, opts Options) (map[PropertyID]Result, e
 }
 
 // Apply evaluates recorded families and parameters (a loaded tuning file) on a dataset
-// without tuning: statistics, residuals and intervals at the recorded parameters.
+// without tuning: statistics, residuals and intervals at the recorded parameters, and the
+// recorded ladder and leave-one-out error (those of the tuning that made them).
 // Properties without lab data are absent from the result; recorded properties that the
 // dataset has data for but stored lacks are tuned afresh.
 func Apply(ds *Dataset, stored map[PropertyID]Result, opts Options) (map[PropertyID]Result, error) {
@@ -328,6 +329,10 @@ func runAll(ds *Dataset, choice Choice, fixed map[PropertyID]Result, opts Option
 		r, err := tuneWith(ds, p, fam, opts, dead, sat, fx, fd)
 		if err != nil {
 			return out, err
+		}
+		if st, ok := fixed[p]; ok && st.Ladder != nil {
+			// The ladder and leave-one-out error as recorded when the parameters were tuned.
+			r.Ladder, r.LOO = st.Ladder, st.LOO
 		}
 		if r.NoFit != "" && choice[p] == "" {
 			// The family is the best-ranked one: none follows the lab points.
