@@ -72,7 +72,11 @@ func NewModel(ds *Dataset, results map[PropertyID]Result, opts Options) (*Model,
 	if err != nil {
 		return nil, err
 	}
-	m.sg = pbModel{sg, m.Oil, m.Rsb}
+	oil := m.Oil
+	if oil.Rsb == 0 {
+		oil.Rsb = m.Rsb
+	}
+	m.sg = pbModel{sg, oil, m.Rsb}
 	bo, err := correlations.OilFVFByID(m.Families[Bo])
 	if err != nil {
 		return nil, err

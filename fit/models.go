@@ -34,7 +34,11 @@ func newModel(ds *Dataset, p PropertyID, family string, opts Options, muDead, mu
 	switch p {
 	case Pb:
 		f, err := correlations.SolutionGasByID(family)
-		return pbModel{f, ds.Oil, ds.Rsb}, err
+		oil := ds.Oil
+		if oil.Rsb == 0 {
+			oil.Rsb = ds.Rsb
+		}
+		return pbModel{f, oil, ds.Rsb}, err
 	case Bo:
 		f, err := correlations.OilFVFByID(family)
 		return boModel{f, ds.Oil}, err
