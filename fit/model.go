@@ -273,7 +273,28 @@ func (m *Model) undersaturated(rs, pb, p float64) (State, []QuantityError) {
 	if err != nil {
 		errs, boOK = append(errs, QuantityError{"Bo", p, fmt.Errorf("Bo at Pb %.6g psia: %w", pb, err)}), false
 	}
+	// The co tuning m·co + s was fitted to the report's oil. For an oil with other Rs (a branch
+	// of a table) the shift is carried as a fraction of the report's compressibility over the
+	// same span above its bubble point: co_tuned = co·(m + s/co_ref), which is the tuned
+	// correlation for the report's oil and never turns a small compressibility negative.
 	qc := m.Params[Co]
+	dp := p - pb
+	avgFactor, instFactor := qc.Multiplier, qc.Multiplier
+	if qc.Shift != 0 {
+		if dp > 0 {
+			rvRef, err := m.co.RelativeVolume(m.Pb+dp, m.Pb, m.Rsb, m.Oil)
+			if err != nil || !(rvRef > 0 && rvRef < 1) {
+				errs = append(errs, QuantityError{"co", p, fmt.Errorf("the report's relative volume %g above Pb: %v", rvRef, err)})
+			} else {
+				avgFactor += qc.Shift / (-math.Log(rvRef) / dp)
+			}
+		}
+		if coRef, err := m.co.Co(m.Pb+dp, m.Pb, m.Rsb, m.Oil); err == nil && coRef > 0 {
+			instFactor += qc.Shift / coRef
+		} else {
+			errs = append(errs, QuantityError{"co", p, fmt.Errorf("the report's compressibility above Pb: %v", err)})
+		}
+	}
 	if boOK {
 		rv, err := m.co.RelativeVolume(p, pb, rs, m.Oil)
 		switch {
@@ -282,13 +303,13 @@ func (m *Model) undersaturated(rs, pb, p float64) (State, []QuantityError) {
 		case !(rv > 0):
 			errs, boOK = append(errs, QuantityError{"Bo", p, fmt.Errorf("relative volume %g, want > 0", rv)}), false
 		default:
-			s.Bo = bob * math.Exp(qc.Multiplier*math.Log(rv)-qc.Shift*(p-pb))
+			s.Bo = bob * math.Exp(avgFactor*math.Log(rv))
 		}
 	}
 	if co, err := m.co.Co(p, pb, rs, m.Oil); err != nil {
 		errs = append(errs, QuantityError{"co", p, err})
 	} else {
-		s.Co = qc.Multiplier*co + qc.Shift
+		s.Co = instFactor * co
 	}
 	if mub, err := m.muSat(rs); err != nil {
 		errs = append(errs, QuantityError{"oil viscosity", p, fmt.Errorf("viscosity at Pb %.6g psia: %w", pb, err)})
