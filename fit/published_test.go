@@ -19,7 +19,9 @@ const (
 	publishedBoAARE = 0.3
 )
 
-func TestPublishedReportTuning(t *testing.T) {
+// tunedPublished tunes the published report at the default depths and builds its model.
+func tunedPublished(t *testing.T) (*Dataset, map[PropertyID]Result, *Model) {
+	t.Helper()
 	r, err := lab.ReadFolder("../testdata/published/good-oil-well-4")
 	if err != nil {
 		t.Fatal(err)
@@ -36,6 +38,11 @@ func TestPublishedReportTuning(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	return ds, res, m
+}
+
+func TestPublishedReportTuning(t *testing.T) {
+	ds, res, m := tunedPublished(t)
 	if math.Abs(m.Pb/ds.Pb-1) > inverseTol {
 		t.Errorf("tuned Pb %.6g psia, report %.6g psia", m.Pb, ds.Pb)
 	}
@@ -74,24 +81,9 @@ func TestPublishedReportTuning(t *testing.T) {
 // than the report's, Bo falls and the viscosity rises along each branch, although the report's
 // compressibility was tuned with a shift.
 func TestPublishedReportBranches(t *testing.T) {
-	r, err := lab.ReadFolder("../testdata/published/good-oil-well-4")
-	if err != nil {
-		t.Fatal(err)
-	}
-	ds, err := NewDataset(r)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := TuneAll(ds, nil, Options{})
-	if err != nil {
-		t.Fatal(err)
-	}
+	ds, res, m := tunedPublished(t)
 	if res[Co].Params.Shift == 0 {
 		t.Logf("co tuned without a shift (depth %s): the check still holds", res[Co].Depth)
-	}
-	m, err := NewModel(ds, res, Options{})
-	if err != nil {
-		t.Fatal(err)
 	}
 	for _, f := range []float64{0.1, 0.3, 0.6, 1, 1.2} {
 		rs := f * ds.Rsb
