@@ -103,9 +103,10 @@ func runTables(args []string, stdout, stderr io.Writer) int {
 		`Black-oil tables at reservoir temperature from the tuned model: saturated rows (pressure,
 Rs, Bo, co, oil viscosity and density, Z, Bg, gas viscosity, and the formation water) from
 atmospheric pressure to --pmax, Pb always a row, each with its undersaturated branch to
---pmax (the top row gets one point a step above it). Rows above the tuned Pb are oils with
-more gas than the report's, from the tuned solution-gas pair continued, and are marked as
-extrapolated.
+--pmax. The top row gets one point a step above it; a row whose oil the tuned families
+cannot describe above its bubble point (such as the dead oil) is left without one and noted.
+Rows above the tuned Pb are oils with more gas than the report's, from the tuned
+solution-gas pair continued, and are marked as extrapolated.
 
 DIR (or demo:<id>) is tuned afresh with the best-ranked families and default options, or
 takes the families and parameters of --tuning F; a TUNING_FILE alone (written by

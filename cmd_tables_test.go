@@ -1,6 +1,7 @@
 package main
 
 import (
+	"encoding/json"
 	"os"
 	"path/filepath"
 	"strings"
@@ -89,11 +90,31 @@ func body(s string) string {
 }
 
 func TestTablesRefusedDeckHint(t *testing.T) {
-	// The published report at its default depths breaks a simulator rule (its co shift):
-	// the deck is refused with the row, a hint, and no file.
-	out := filepath.Join(t.TempDir(), "pvt.inc")
-	code, _, stderr := runCLI(t, "tables", filepath.Join("testdata", "published", "good-oil-well-4"), "--format", "deck", "--out", out)
-	if code != exitData || !strings.Contains(stderr, "PVTO record") || !strings.Contains(stderr, "hint:") {
+	// A tuning file edited by hand so that the tuned co turns negative at high pressure: the
+	// deck is refused with the row, a hint, and no file.
+	dir := t.TempDir()
+	tuning := filepath.Join(dir, "t.json")
+	if code, _, stderr := runCLI(t, "tune", "demo:tr3-black", "--save", tuning); code != exitOK {
+		t.Fatalf("tune --save: %d %s", code, stderr)
+	}
+	raw, err := os.ReadFile(tuning)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var tf map[string]any
+	if err := json.Unmarshal(raw, &tf); err != nil {
+		t.Fatal(err)
+	}
+	co := tf["properties"].(map[string]any)["co"].(map[string]any)
+	co["depth"] = "shape"
+	co["parameters"].(map[string]any)["shift"] = -5e-5
+	raw, _ = json.Marshal(tf)
+	if err := os.WriteFile(tuning, raw, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "pvt.inc")
+	code, _, stderr := runCLI(t, "tables", "demo:tr3-black", "--tuning", tuning, "--format", "deck", "--out", out)
+	if code != exitData || !strings.Contains(stderr, "PVTO record") || !strings.Contains(stderr, "Bo must fall") || !strings.Contains(stderr, "hint:") {
 		t.Errorf("exit %d, stderr %q", code, stderr)
 	}
 	if _, err := os.Stat(out); err == nil {

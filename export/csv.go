@@ -133,5 +133,8 @@ func headerLines(t *Table, c *converter) []string {
 	for _, w := range t.Warnings {
 		lines = append(lines, "outside the data: "+w)
 	}
+	for _, n := range t.Notes {
+		lines = append(lines, "note: "+n)
+	}
 	return append(lines, "caution: "+Caution)
 }

@@ -41,12 +41,6 @@ func loadTuned(t testing.TB, id string) tuned {
 		t.Fatal(err)
 	}
 	opts := fit.Options{}
-	if id == "good-oil-well-4" {
-		// At its default depths the co of the published report takes a negative shift that
-		// makes the undersaturated Bo of low-Rs oils rise (TestDeckRefusesPublishedDefault);
-		// its tables are made at the multiplier depth, as a user would after that refusal.
-		opts.Depth = fit.DepthMultiplier
-	}
 	res, err := fit.TuneAll(ds, nil, opts)
 	if err != nil {
 		t.Fatal(err)

@@ -114,21 +114,24 @@ type FluidRecord struct {
 	SepPressure    float64 `json:"separator_pressure_psia,omitempty"`
 	SepTemperature float64 `json:"separator_temperature_degf,omitempty"`
 	SepGasGravity  float64 `json:"separator_gas_gravity,omitempty"`
-	Pb             float64 `json:"pb_psia"`
-	Rsb            float64 `json:"rsb_scf_stb"`
-	Bob            float64 `json:"bob_rb_stb"`
-	H2S            float64 `json:"h2s_fraction,omitempty"`
-	CO2            float64 `json:"co2_fraction,omitempty"`
-	StdPressure    float64 `json:"standard_pressure_psia"`
-	StdTemp        float64 `json:"standard_temperature_degf"`
-	MaxLabPressure float64 `json:"max_lab_pressure_psia"`
+	// SepStagesGasGravity is the gravity of the gas of every stage ahead of the stock tank.
+	SepStagesGasGravity float64 `json:"separator_stages_gas_gravity,omitempty"`
+	Pb                  float64 `json:"pb_psia"`
+	Rsb                 float64 `json:"rsb_scf_stb"`
+	Bob                 float64 `json:"bob_rb_stb"`
+	H2S                 float64 `json:"h2s_fraction,omitempty"`
+	CO2                 float64 `json:"co2_fraction,omitempty"`
+	StdPressure         float64 `json:"standard_pressure_psia"`
+	StdTemp             float64 `json:"standard_temperature_degf"`
+	MaxLabPressure      float64 `json:"max_lab_pressure_psia"`
 }
 
 // NewFluidRecord records a dataset's fluid description and the highest pressure of the report.
 func NewFluidRecord(ds *fit.Dataset, r *lab.Report) FluidRecord {
 	return FluidRecord{API: ds.Oil.API, GasGravity: ds.Oil.GasGravity, Temperature: ds.Oil.Temperature,
 		SepPressure: ds.Oil.SepPressure, SepTemperature: ds.Oil.SepTemperature, SepGasGravity: ds.Oil.SepGasGravity,
-		Pb: ds.Pb, Rsb: ds.Rsb, Bob: ds.Bob, H2S: ds.H2S, CO2: ds.CO2, StdPressure: ds.StdPressure, StdTemp: ds.StdTemp,
+		SepStagesGasGravity: ds.Oil.SepStagesGasGravity,
+		Pb:                  ds.Pb, Rsb: ds.Rsb, Bob: ds.Bob, H2S: ds.H2S, CO2: ds.CO2, StdPressure: ds.StdPressure, StdTemp: ds.StdTemp,
 		MaxLabPressure: MaxLabPressure(r)}
 }
 
@@ -137,7 +140,8 @@ func (f FluidRecord) Dataset(name string) *fit.Dataset {
 	return &fit.Dataset{Name: name, Pb: f.Pb, Rsb: f.Rsb, Bob: f.Bob, CCEPsat: f.Pb, H2S: f.H2S, CO2: f.CO2,
 		StdPressure: f.StdPressure, StdTemp: f.StdTemp, Points: map[fit.PropertyID][]fit.Point{},
 		Oil: correlations.Oil{API: f.API, GasGravity: f.GasGravity, Temperature: f.Temperature,
-			SepPressure: f.SepPressure, SepTemperature: f.SepTemperature, SepGasGravity: f.SepGasGravity}}
+			SepPressure: f.SepPressure, SepTemperature: f.SepTemperature, SepGasGravity: f.SepGasGravity,
+			SepStagesGasGravity: f.SepStagesGasGravity, Rsb: f.Rsb}}
 }
 
 // validate checks what a hand-edited or damaged fluid record could get wrong.
@@ -165,7 +169,7 @@ func (f FluidRecord) validate() error {
 			return fmt.Errorf("fluid: %s %g, want a mole fraction from 0 to 1", c.name, c.v)
 		}
 	}
-	for _, v := range []float64{f.SepPressure, f.SepTemperature, f.SepGasGravity, f.StdTemp, f.MaxLabPressure} {
+	for _, v := range []float64{f.SepPressure, f.SepTemperature, f.SepGasGravity, f.SepStagesGasGravity, f.StdTemp, f.MaxLabPressure} {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
 			return fmt.Errorf("fluid: a value is not a number")
 		}

@@ -62,6 +62,7 @@ type Table struct {
 	Water       Water
 	Surface     SurfaceDensities
 	Warnings    []string // inputs outside the data of the families used
+	Notes       []string // what the table leaves out and why
 }
 
 // SatRow is one saturated row (the oil at its bubble point) and its undersaturated branch.
@@ -72,6 +73,11 @@ type SatRow struct {
 	// re-dissolves).
 	Extrapolated bool
 	Branch       []fit.State // pressures above the row's, rising; Rs as the row's
+	// NoBranch says why the row has no undersaturated branch: the tuned families cannot
+	// describe that oil above its bubble point (for example a compressibility correlation that
+	// needs Rs > 0 on the dead-oil row). Simulators then take the branch shape of the next
+	// record; the highest row always has a branch.
+	NoBranch string
 }
 
 // GasRow is the dry gas at one pressure.
@@ -165,6 +171,12 @@ func BuildTable(m *fit.Model, src Source, opts TableOptions) (*Table, error) {
 		}
 		for _, p := range ps {
 			s, err := m.Undersaturated(r.Rs, p)
+			if err != nil && errors.Is(err, correlations.ErrInput) && i < len(t.Rows)-1 {
+				// The oil lies outside a family's domain above its bubble point: no branch.
+				r.Branch, r.NoBranch = nil, err.Error()
+				t.Notes = append(t.Notes, fmt.Sprintf("the saturated row at %.6g psia (Rs %.6g scf/STB) has no undersaturated branch (%v); simulators take the branch shape of the next row", r.Pressure, r.Rs, err))
+				break
+			}
 			if err != nil {
 				return nil, fmt.Errorf("export: tables: undersaturated branch of the row at %.6g psia (Rs %.6g scf/STB): %w", r.Pressure, r.Rs, err)
 			}
