@@ -562,14 +562,23 @@ func loadErrorView(c *common, w, h int) string {
 		if pe.Header != "" {
 			loc += " (" + pe.Header + ")"
 		}
-		lines = append(lines, "  "+st.Bold.Render("where: ")+loc)
+		labelled := func(label, text string) {
+			for i, l := range wrap(text, w-9, "") {
+				if i == 0 {
+					lines = append(lines, "  "+st.Bold.Render(label)+l)
+				} else {
+					lines = append(lines, "         "+l)
+				}
+			}
+		}
+		labelled("where  ", loc)
 		msg := pe.Msg
 		if msg == "" && pe.Err != nil {
 			msg = strings.TrimPrefix(pe.Err.Error(), "lab: ")
 		}
-		lines = append(lines, wrap("  what:  "+msg, w, "         ")...)
+		labelled("what   ", msg)
 		if pe.Hint != "" {
-			lines = append(lines, wrap("  hint:  "+pe.Hint, w, "         ")...)
+			labelled("hint   ", pe.Hint)
 		}
 		lines = append(lines, "")
 	}

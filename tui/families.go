@@ -99,9 +99,12 @@ func (f familiesScreen) view(c *common, w, h int) string {
 	if !ok {
 		return strings.Join(append(lines, st.Dim.Render("ranking…")), "\n")
 	}
-	lines = append(lines, st.Title.Render(propertyTitle(p))+st.Dim.Render(fmt.Sprintf("   %d points · ranked by tuned AARE · ", len(s.ds.Points[p]))+string(s.loss)+" errors"))
-	famW := 22
-	hdr := fmt.Sprintf("     %-*s %9s %9s %9s  %-10s %7s  %s", famW, "family", "published", "tuned", "LOO", "depth", "mult.", "range")
+	lines = append(lines, st.Title.Render(propertyTitle(p))+st.Dim.Render(fmt.Sprintf("   %d points · best first · %s errors", len(s.ds.Points[p]), s.loss)))
+	famW, nw := 22, 9
+	if w < 90 {
+		famW, nw = 20, 8
+	}
+	hdr := fmt.Sprintf("    %-*s %*s %*s %*s  %-10s %6s  %s", famW, "family", nw, "published", nw, "tuned", nw, "LOO", "depth", "mult.", "range")
 	lines = append(lines, st.Header.Render(cell(hdr, w)))
 	cur := min(f.cursor[p], max(0, len(es)-1))
 	room := max(1, h-len(lines)-7)
@@ -124,7 +127,7 @@ func (f familiesScreen) view(c *common, w, h int) string {
 		}
 		var row string
 		if e.Failed != "" {
-			row = fmt.Sprintf("%s %-*s %9s %9s %9s  %-10s %7s  %s", strings.Join(mark[:], ""), famW, e.Family, "—", "—", "—", "", "", "cannot be evaluated")
+			row = fmt.Sprintf("%s %-*s %*s %*s %*s  %-10s %6s  %s", strings.Join(mark[:], ""), famW, e.Family, nw, "—", nw, "—", nw, "—", "", "", "cannot be evaluated")
 		} else {
 			rng := "in"
 			if !e.InRange {
@@ -134,8 +137,8 @@ func (f familiesScreen) view(c *common, w, h int) string {
 			if depth == "" {
 				depth = "n/a"
 			}
-			row = fmt.Sprintf("%s %-*s %9s %9s %9s  %-10s %7s  %s", strings.Join(mark[:], ""), famW, e.Family,
-				pctp(e.AAREPublished), pctp(e.AARETuned), pctp(e.AARELOO), depth, ptrNum(e.Multiplier, 3), rng)
+			row = fmt.Sprintf("%s %-*s %*s %*s %*s  %-10s %6s  %s", strings.Join(mark[:], ""), famW, e.Family,
+				nw, pctp(e.AAREPublished), nw, pctp(e.AARETuned), nw, pctp(e.AARELOO), depth, ptrNum(e.Multiplier, 3), rng)
 		}
 		row = cell(row, w)
 		switch {

@@ -7,6 +7,7 @@ import (
 
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/lipgloss"
 
 	"labmatch/fit"
 )
@@ -226,7 +227,7 @@ func (m matchScreen) plotLines(c *common, p fit.PropertyID, r fit.Result, w, h i
 		return out
 	}
 	xlo, xhi := plotRange(s.ds, p)
-	pl := plot{width: w, height: h - 2, xmin: xlo, xmax: xhi, axis: st.Axis}
+	pl := plot{width: w, xmin: xlo, xmax: xhi, axis: st.Axis}
 	ys := []float64{}
 	add := func(vs []float64) {
 		for _, v := range vs {
@@ -304,9 +305,25 @@ func (m matchScreen) plotLines(c *common, p fit.PropertyID, r fit.Result, w, h i
 		pl.vlines = append(pl.vlines, plotVLine{x: s.ds.Pb, label: "Pb", style: st.Pb})
 	}
 	legend = append([]string{st.Tuned.Render("── tuned"), st.Published.Render("·· published"), st.Lab.Render("● lab")}, legend...)
+	var legendLines []string
+	line := ""
+	for _, item := range legend {
+		if line != "" && lipgloss.Width(line)+2+lipgloss.Width(item) > w {
+			legendLines = append(legendLines, line)
+			line = ""
+		}
+		if line != "" {
+			line += "  "
+		}
+		line += item
+	}
+	legendLines = append(legendLines, line)
+	pl.height = h - 1 - len(legendLines)
 	out := []string{st.Dim.Render(cell(yAxisTitle(p, r)+"  vs  p [psia]", w))}
 	out = append(out, pl.render()...)
-	out = append(out, cell(strings.Join(legend, "  "), w))
+	for _, l := range legendLines {
+		out = append(out, cell(l, w))
+	}
 	return out
 }
 

@@ -186,6 +186,7 @@ func reportContent(c *common, w int) ([]string, []int) {
 		where = r.Dir
 	}
 	out = append(out, cell(st.Title.Render("Fluid")+"  "+st.Bold.Render(name)+st.Dim.Render("  "+where), w))
+	out = append(out, st.Dim.Render(cell("  left of a row: E error, W warning, n note and the finding's number in the list at the end (n jumps there)", w)))
 	fl := r.Fluid
 	type kv struct{ key, value string }
 	items := []kv{

@@ -122,8 +122,12 @@ func (t tablesScreen) lines(c *common, w int) []string {
 
 func stateCells(r tableRow) []string {
 	s := r.st
+	co := "" // the tuned compressibility applies above the bubble point only
+	if r.kind != rowSaturated {
+		co = num(s.Co*1e6, 2)
+	}
 	return []string{num(s.Pressure, 1), num(s.Rs, 1), num(s.Bo, 4), num(s.OilViscosity, 3), num(s.OilDensity, 2),
-		sig(s.Co*1e6, 4), num(s.Z, 4), sig(s.Bg, 4), num(s.GasViscosity, 4)}
+		co, num(s.Z, 4), sig(s.Bg, 4), num(s.GasViscosity, 4)}
 }
 
 func (t tablesScreen) view(c *common, w, h int) string {
@@ -146,7 +150,9 @@ func (t tablesScreen) view(c *common, w, h int) string {
 	for _, p := range s.props {
 		fams = append(fams, string(p)+" "+m.Families[p])
 	}
-	head = append(head, wrap(st.Dim.Render("families: ")+strings.Join(fams, ", "), w, "  ")...)
+	if h >= 30 {
+		head = append(head, wrap(st.Dim.Render("families: ")+strings.Join(fams, ", "), w, "  ")...)
+	}
 	if len(m.Untuned) > 0 {
 		var u []string
 		for _, p := range m.Untuned {
@@ -160,7 +166,7 @@ func (t tablesScreen) view(c *common, w, h int) string {
 		hb.WriteString(" " + cellRight(col.title, col.w))
 	}
 	head = append(head, st.Header.Render(cell(hb.String(), w)))
-	head = append(head, st.Dim.Render(cell("     Rs scf/STB · Bo rb/STB · ρo lbm/ft3 · co 1e-6/psi · Bg rcf/scf", w)))
+	head = append(head, st.Dim.Render(cell("     Rs scf/STB · Bo rb/STB · ρo lbm/ft3 · co 1e-6/psi above Pb · Bg rcf/scf", w)))
 
 	foot := t.footer(c, w)
 	rows := t.lines(c, w)
