@@ -19,7 +19,7 @@ import (
 )
 
 // focus moves the Families/Match focus to property p.
-func focus(t *testing.T, m Model, p fit.PropertyID) Model {
+func focus(t testing.TB, m Model, p fit.PropertyID) Model {
 	t.Helper()
 	for i := 0; i < len(m.c.s.props); i++ {
 		if m.c.property() == p {

@@ -266,12 +266,31 @@ func abs(x int) int {
 	return x
 }
 
-// ticks returns round values spanning [lo, hi], about n of them.
+// ticks returns round values spanning [lo, hi], as close to n of them as a step of 1, 2, 2.5
+// or 5 times a power of ten allows (at least two where the range holds two).
 func ticks(lo, hi float64, n int) []float64 {
-	step := niceStep((hi - lo) / float64(n))
+	if !(hi > lo) || math.IsInf(hi-lo, 0) {
+		return nil
+	}
+	e := math.Pow(10, math.Floor(math.Log10((hi-lo)/float64(max(n, 1)))))
+	best, bestScore := 0.0, math.Inf(1)
+	for _, k := range []float64{0.1, 1, 10} {
+		for _, f := range []float64{1, 2, 2.5, 5} {
+			step := f * e * k
+			count := math.Floor(hi/step+1e-9) - math.Ceil(lo/step-1e-9) + 1
+			score := math.Abs(count - float64(n))
+			if count < 2 {
+				score += 100
+			}
+			if score < bestScore || (score == bestScore && step > best) {
+				best, bestScore = step, score
+			}
+		}
+	}
 	var out []float64
-	for v := math.Ceil(lo/step) * step; v <= hi+step*1e-9; v += step {
-		if math.Abs(v) < step*1e-9 {
+	for i := math.Ceil(lo/best - 1e-9); i*best <= hi+best*1e-9; i++ {
+		v := i * best
+		if math.Abs(v) < best*1e-9 {
 			v = 0
 		}
 		out = append(out, v)
