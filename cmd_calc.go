@@ -71,13 +71,13 @@ type oilCalcOut struct {
 }
 
 func runCalcOil(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("calc oil", "labmatch calc oil --api A --gas-gravity G --temperature T --rsb R --pressure P [family flags] [--json]",
-		"Oil properties at one pressure from the published correlations (no tuning).\nValues take units: 2000psia, 150bar, 93degC, 107sm3/sm3; plain numbers are field units.")
+	fs := newFlagSet("calc oil", "labmatch calc oil --api A --gas-gravity G --temperature T --rsb R [--pressure P] [family flags] [--json]",
+		"Oil properties at one pressure from the published correlations (no tuning); without\n--pressure, at the bubble point (Pb, Bob, oil density and viscosity at Pb, dead-oil viscosity).\nValues take units: 2000psia, 150bar, 93degC, 107sm3/sm3; plain numbers are field units.")
 	api := fs.Float64("api", 0, "stock-tank oil gravity, `degAPI`")
 	gg := fs.Float64("gas-gravity", 0, "separator gas `gravity` (air = 1)")
 	temp := quantity(fs, "temperature", lab.Temperature, 0, "reservoir `temperature` (default unit degF)")
 	rsb := quantity(fs, "rsb", lab.GOR, 0, "solution GOR at the bubble point (default unit scf/STB)")
-	press := quantity(fs, "pressure", lab.Pressure, 0, "`pressure` to evaluate at (default unit psia)")
+	press := quantity(fs, "pressure", lab.Pressure, 0, "`pressure` to evaluate at (default unit psia; default: the bubble point)")
 	sepGG := fs.Float64("sep-gas-gravity", 0, "first-stage separator gas `gravity`, for Vasquez–Beggs and Kartoatmodjo–Schmidt (default: --gas-gravity)")
 	sepP := quantity(fs, "sep-pressure", lab.Pressure, 114.7, "first-stage separator `pressure`, for the separator-gas normalisations (default 114.7 psia)")
 	sepT := quantity(fs, "sep-temperature", lab.Temperature, 60, "first-stage separator `temperature` (default 60 degF)")
@@ -93,7 +93,7 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	for _, req := range []struct {
 		name string
 		ok   bool
-	}{{"--api", *api > 0}, {"--gas-gravity", *gg > 0}, {"--temperature", temp.set}, {"--rsb", rsb.set && rsb.v > 0}, {"--pressure", press.set}} {
+	}{{"--api", *api > 0}, {"--gas-gravity", *gg > 0}, {"--temperature", temp.set}, {"--rsb", rsb.set && rsb.v > 0}, {"--pressure", !press.set || press.v > 0}} {
 		if !req.ok {
 			return usageError(fs, stderr, "%s is required (and must be above zero)", req.name)
 		}
@@ -108,6 +108,9 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	if err != nil {
 		fmt.Fprintln(stderr, "labmatch:", err)
 		return exitData
+	}
+	if !press.set {
+		press.v = m.Pb
 	}
 	st, err := m.At(press.v)
 	if err != nil {
@@ -127,6 +130,9 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	state := "saturated"
 	if press.v > m.Pb {
 		state = "undersaturated"
+	}
+	if !press.set {
+		state = "at the bubble point"
 	}
 	fmt.Fprintf(tw, "oil at %.1f psia, %.1f degF (%s)\n", press.v, temp.v, state)
 	rows := []struct {

@@ -25,13 +25,14 @@ func loadReport(arg string) (*lab.Report, error) {
 
 // optionFlags are the tuning options shared by rank and tune.
 type optionFlags struct {
-	mode, loss, ppc *string
-	huber           *float64
+	depth, mode, loss, ppc *string
+	huber                  *float64
 }
 
 func addOptionFlags(fs *flag.FlagSet) optionFlags {
 	return optionFlags{
-		mode:  fs.String("mode", "multiplier", "tuning `parameters`: multiplier or multiplier+shift"),
+		depth: fs.String("depth", "auto", "tuning `depth` of every property: published, multiplier, shape, refit, or auto (the rung with the smallest leave-one-out error)"),
+		mode:  fs.String("mode", "", "older name of --depth: multiplier, or multiplier+shift (= shape)"),
 		loss:  fs.String("loss", "relative", "objective: relative, absolute or huber"),
 		huber: fs.Float64("huber-delta", 0.02, "relative error where the huber loss turns linear"),
 		ppc:   fs.String("ppc", "sutton", "pseudo-critical family for Z, Bg and gas viscosity: sutton or standing"),
@@ -39,11 +40,25 @@ func addOptionFlags(fs *flag.FlagSet) optionFlags {
 }
 
 func (o optionFlags) options() (fit.Options, error) {
-	opts := fit.Options{Mode: fit.Mode(*o.mode), Loss: fit.Loss(*o.loss), HuberDelta: *o.huber, PseudoCritical: *o.ppc}
-	switch opts.Mode {
-	case fit.Multiplier, fit.MultiplierShift:
+	opts := fit.Options{Loss: fit.Loss(*o.loss), HuberDelta: *o.huber, PseudoCritical: *o.ppc}
+	switch d := fit.Depth(*o.depth); d {
+	case "auto", "":
+	case fit.DepthPublished, fit.DepthMultiplier, fit.DepthShape, fit.DepthRefit:
+		opts.Depth = d
 	default:
-		return opts, fmt.Errorf("--mode %q: want multiplier or multiplier+shift", *o.mode)
+		return opts, fmt.Errorf("--depth %q: want published, multiplier, shape, refit or auto", *o.depth)
+	}
+	switch *o.mode {
+	case "":
+	case "multiplier":
+		opts.Depth = fit.DepthMultiplier
+	case "multiplier+shift":
+		opts.Depth = fit.DepthShape
+	default:
+		return opts, fmt.Errorf("--mode %q: want multiplier or multiplier+shift (or use --depth)", *o.mode)
+	}
+	if *o.mode != "" && *o.depth != "auto" {
+		return opts, fmt.Errorf("--mode is the older name of --depth: give one of them")
 	}
 	switch opts.Loss {
 	case fit.Relative, fit.Absolute, fit.Huber:
@@ -60,8 +75,8 @@ func (o optionFlags) options() (fit.Options, error) {
 }
 
 func runRank(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("rank", "labmatch rank DIR [--json]",
-		"Score every correlation family of every property against the report, as published and\nas tuned (--mode), best first: by tuned AARE (to 0.01 %), then published AARE, then id.\nLive-oil viscosity families are scored with the measured dead-oil viscosity and viscosity\nat Pb. DIR may be demo:<id> for a built-in report.")
+	fs := newFlagSet("rank", "labmatch rank DIR [--depth D] [--json]",
+		"Score every correlation family of every property against the report, as published and as\ntuned at its chosen depth (--depth), best first: by the leave-one-out AARE of that depth (to\n0.01 %; the tuned AARE where a property has too few points for one), then tuned AARE, then\npublished AARE, then id. Live-oil viscosity families are scored with the measured dead-oil\nviscosity and viscosity at Pb. DIR may be demo:<id> for a built-in report.")
 	asJSON := fs.Bool("json", false, "print JSON")
 	of := addOptionFlags(fs)
 	pos, code := parseFlags(fs, args, stdout, stderr)
@@ -84,7 +99,7 @@ func runRank(args []string, stdout, stderr io.Writer) int {
 		out := map[string]any{"report": ds.Name, "properties": rk, "notes": nonNil(ds.Notes)}
 		return writeJSON(stdout, stderr, out)
 	}
-	fmt.Fprintf(stdout, "%s — families ranked by tuned AARE (separator basis, %s)\n", ds.Name, opts.Resolved().Mode)
+	fmt.Fprintf(stdout, "%s — families ranked by leave-one-out AARE at their %s depth (separator basis)\n", ds.Name, depthWord(opts))
 	for _, p := range fit.Properties {
 		es, ok := rk[p]
 		if !ok {
@@ -92,18 +107,10 @@ func runRank(args []string, stdout, stderr io.Writer) int {
 		}
 		fmt.Fprintf(stdout, "\n%s (%s)\n", propertyTitle(p), plural(len(ds.Points[p]), "point"))
 		tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', 0)
-		shiftCol := ""
-		if opts.Resolved().Mode == fit.MultiplierShift {
-			shiftCol = "\tshift"
-		}
-		fmt.Fprintln(tw, "  #\tfamily\tAARE published %\tAARE tuned %\tmultiplier"+shiftCol+"\tremarks")
+		fmt.Fprintln(tw, "  #\tfamily\tdepth\tAARE published %\tAARE tuned %\tAARE leave-one-out %\tmultiplier\tremarks")
 		for i, e := range es {
 			if e.Failed != "" {
-				dash := ""
-				if shiftCol != "" {
-					dash = "\t-"
-				}
-				fmt.Fprintf(tw, "  %d\t%s\t-\t-\t-%s\tcannot be evaluated: %s\n", i+1, e.Family, dash, e.Failed)
+				fmt.Fprintf(tw, "  %d\t%s\t-\t-\t-\t-\t-\tcannot be evaluated: %s\n", i+1, e.Family, e.Failed)
 				continue
 			}
 			var remarks []string
@@ -111,11 +118,7 @@ func runRank(args []string, stdout, stderr io.Writer) int {
 				remarks = append(remarks, "OUTSIDE its data: "+strings.Join(e.OutOfRange, "; "))
 			}
 			remarks = append(remarks, e.Flags...)
-			sh := ""
-			if e.Shift != nil {
-				sh = fmt.Sprintf("\t%.4g", *e.Shift)
-			}
-			fmt.Fprintf(tw, "  %d\t%s\t%.2f\t%.2f\t%.3f%s\t%s\n", i+1, e.Family, *e.AAREPublished, *e.AARETuned, *e.Multiplier, sh, strings.Join(remarks, "; "))
+			fmt.Fprintf(tw, "  %d\t%s\t%s\t%.2f\t%.2f\t%s\t%.3f\t%s\n", i+1, e.Family, e.Depth, *e.AAREPublished, *e.AARETuned, pct(e.AARELOO), *e.Multiplier, strings.Join(remarks, "; "))
 		}
 		tw.Flush()
 	}
@@ -140,6 +143,22 @@ func loadDataset(arg string, stderr io.Writer) (*lab.Report, *fit.Dataset, int) 
 		ds.Name = arg
 	}
 	return r, ds, -1
+}
+
+// depthWord names the depth in headings: "chosen" or the forced one.
+func depthWord(o fit.Options) string {
+	if o.Depth == "" {
+		return "chosen"
+	}
+	return string(o.Depth)
+}
+
+// pct prints an optional percentage, "n/a" when absent.
+func pct(v *float64) string {
+	if v == nil {
+		return "n/a"
+	}
+	return fmt.Sprintf("%.2f", *v)
 }
 
 func propertyTitle(p fit.PropertyID) string {
@@ -189,6 +208,10 @@ func printNotes(w io.Writer, notes []string) {
 
 type tuneJSON struct {
 	Family        string                `json:"family"`
+	Depth         fit.Depth             `json:"depth"`
+	AARELOO       *float64              `json:"aare_pct_loo"`
+	NoFit         string                `json:"no_fit,omitempty"`
+	Ladder        []fit.Rung            `json:"ladder"`
 	Parameters    map[string]float64    `json:"parameters"`
 	ShiftUnit     string                `json:"shift_unit,omitempty"`
 	CI95          map[string][2]float64 `json:"ci95"`
@@ -203,8 +226,15 @@ type tuneJSON struct {
 }
 
 func runTune(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("tune", "labmatch tune DIR [--pb ID --bo ID --co ID --mu-dead ID --mu-sat ID --mu-under ID --z ID]\n                     [--mode M] [--loss L] [--exclude LIST] [--json] [--save F] [--tuning F] [--force]",
-		"Tune the chosen family of every property (default: the best-ranked) to the report and print\nthe parameters with 95 % intervals and the statistics before and after tuning.\nDIR may be demo:<id> for a built-in report.")
+	fs := newFlagSet("tune", "labmatch tune DIR [--pb ID --bo ID --co ID --mu-dead ID --mu-sat ID --mu-under ID --z ID]\n                     [--depth D] [--loss L] [--exclude LIST] [--json] [--save F] [--tuning F] [--force]",
+		`Tune the chosen family of every property (default: the best-ranked) to the report on a ladder
+of depths: published (no parameter), multiplier (pb: the anchor on the report's Pb alone),
+shape (pb: a bend of Rs(p) below Pb; others: multiplier and shift) and refit (the family's
+own coefficients, held near the published values). For every rung it prints the training and
+the leave-one-out AARE (each point left out in turn, refitted, predicted); by default the
+rung with the smallest leave-one-out error is used, a deeper one only when it wins by 10 %
+and 0.05 points. At every tuned depth Pb(Rsb) equals the report's Pb and the pair Pb(Rs),
+Rs(p) stays an exact inverse. DIR may be demo:<id> for a built-in report.`)
 	fams := familyFlags(fs, nil, fit.Properties...)
 	of := addOptionFlags(fs)
 	exclude := fs.String("exclude", "", "leave points out: `list` of property:index, e.g. bo:3,mu_sat:0 (indexes as listed)")
@@ -252,7 +282,7 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 		var clash []string
 		fs.Visit(func(f *flag.Flag) {
 			switch f.Name {
-			case "mode", "loss", "huber-delta", "ppc", "exclude", "pb", "bo", "co", "mu-dead", "mu-sat", "mu-under", "z":
+			case "depth", "mode", "loss", "huber-delta", "ppc", "exclude", "pb", "bo", "co", "mu-dead", "mu-sat", "mu-under", "z":
 				clash = append(clash, "--"+f.Name)
 			}
 		})
@@ -293,7 +323,14 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 			if res.Shifted {
 				params["shift"], shiftUnit = res.Params.Shift, res.ShiftUnit
 			}
-			props[string(p)] = tuneJSON{Family: res.Family, Parameters: params, ShiftUnit: shiftUnit, CI95: res.CI95, CIAssumed: res.CIAssumed, OutOfRange: nonNil(res.OutOfRange),
+			if res.Params.Bend != 0 {
+				params["bend"] = res.Params.Bend
+			}
+			for j, c := range res.Params.Coefficients {
+				params[res.CoefficientIDs[j]] = c
+			}
+			props[string(p)] = tuneJSON{Family: res.Family, Depth: res.Depth, AARELOO: res.LOO, NoFit: res.NoFit, Ladder: res.Ladder,
+				Parameters: params, ShiftUnit: shiftUnit, CI95: res.CI95, CIAssumed: res.CIAssumed, OutOfRange: nonNil(res.OutOfRange),
 				AAREPublished: res.Published.AARE, AARETuned: res.Tuned.AARE, Published: res.Published, Tuned: res.Tuned,
 				Flags: nonNil(res.Flags), Residuals: res.Residuals}
 		}
@@ -303,7 +340,7 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 	if *tuning != "" {
 		how = "parameters from " + *tuning
 	}
-	fmt.Fprintf(stdout, "%s — %s (separator basis, %s, %s errors)\n", ds.Name, how, opts.Resolved().Mode, opts.Resolved().Loss)
+	fmt.Fprintf(stdout, "%s — %s (separator basis, %s depth, %s errors)\n", ds.Name, how, depthWord(opts), opts.Resolved().Loss)
 	for _, p := range fit.Properties {
 		res, ok := results[p]
 		if !ok {
@@ -320,12 +357,48 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 }
 
 func printResult(w io.Writer, res fit.Result) {
-	fmt.Fprintf(w, "\n%s: %s\n", propertyTitle(res.Property), res.Family)
-	fmt.Fprintf(w, "  multiplier %.4f  %s\n", res.Params.Multiplier, interval(res, "multiplier", "%.4f"))
+	fmt.Fprintf(w, "\n%s: %s at depth %s\n", propertyTitle(res.Property), res.Family, res.Depth)
+	if res.Property == fit.Pb && res.Anchored && res.Depth != fit.DepthPublished {
+		fmt.Fprintf(w, "  pressure scale %.4f  fixed by the report's Pb (Pb exact)\n", res.Params.Multiplier)
+	} else {
+		fmt.Fprintf(w, "  multiplier %.4f  %s\n", res.Params.Multiplier, interval(res, "multiplier", "%.4f"))
+	}
 	if res.Shifted {
 		fmt.Fprintf(w, "  shift      %.4g %s  %s\n", res.Params.Shift, res.ShiftUnit, interval(res, "shift", "%.4g"))
 	}
+	if res.Params.Bend != 0 {
+		fmt.Fprintf(w, "  bend       %.4f  %s  (exponent on Rs/Rsb below Pb)\n", res.Params.Bend, interval(res, "bend", "%.4f"))
+	}
+	if res.Params.Coefficients != nil {
+		pub := fit.DeclaredCoefficients(res.Property, res.Family)
+		for j, c := range res.Params.Coefficients {
+			if j < len(pub) && c == pub[j].Value {
+				continue
+			}
+			id := res.CoefficientIDs[j]
+			fmt.Fprintf(w, "  %-10s %.6g (published %.6g)  %s\n", id, c, pub[j].Value, interval(res, id, "%.6g"))
+		}
+	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	if len(res.Ladder) > 0 {
+		fmt.Fprintln(tw, "  depth\tparameters\tAARE %\tmax |RE| %\tleave-one-out AARE %\t")
+	}
+	for _, r := range res.Ladder {
+		mark := ""
+		if r.Chosen {
+			mark = "◀ chosen"
+		}
+		switch {
+		case r.Skipped != "":
+			fmt.Fprintf(tw, "  %s\t-\t-\t-\t-\tskipped: %s\n", r.Depth, r.Skipped)
+		case r.LOO == nil:
+			fmt.Fprintf(tw, "  %s\t%d\t%.2f\t%.2f\tn/a\t%s (%s)\n", r.Depth, r.Free, r.Tuned.AARE, r.Tuned.MaxARE, mark, r.LOONote)
+		default:
+			fmt.Fprintf(tw, "  %s\t%d\t%.2f\t%.2f\t%.2f\t%s\n", r.Depth, r.Free, r.Tuned.AARE, r.Tuned.MaxARE, *r.LOO, mark)
+		}
+	}
+	tw.Flush()
+	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintf(tw, "  \tpoints\tAARE %%\tbias %%\tmax |RE| %%\tRMSE [%s]\n", res.Tuned.RMSEUnit)
 	fmt.Fprintf(tw, "  published\t%d\t%.2f\t%+.2f\t%.2f\t%.4g\n", res.Published.Points, res.Published.AARE, res.Published.Bias, res.Published.MaxARE, res.Published.RMSE)
 	fmt.Fprintf(tw, "  tuned\t%d\t%.2f\t%+.2f\t%.2f\t%.4g\n", res.Tuned.Points, res.Tuned.AARE, res.Tuned.Bias, res.Tuned.MaxARE, res.Tuned.RMSE)
@@ -340,6 +413,9 @@ func printResult(w io.Writer, res fit.Result) {
 		fmt.Fprintf(tw, "  %d\t%s\t%.1f\t%.5g\t%.5g\t%.5g\t%s\t%+.2f\t%s\n", i, rr.Quantity, rr.Pressure, rr.Lab, rr.Published, rr.Tuned, rr.Unit, 100*(rr.Tuned-rr.Lab)/rr.Lab, mark)
 	}
 	tw.Flush()
+	if res.NoFit != "" {
+		fmt.Fprintln(w, "  NO FIT:", res.NoFit)
+	}
 	for _, f := range res.Flags {
 		fmt.Fprintln(w, "  flag:", f)
 	}

@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"math"
 	"os"
 	"path/filepath"
 	"strconv"
@@ -152,7 +153,7 @@ func TestRankAndTuneJSON(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &rk); err != nil {
 		t.Fatal(err)
 	}
-	for _, k := range []string{"family", "aare_pct_published", "aare_pct_tuned", "multiplier", "in_range", "points"} {
+	for _, k := range []string{"family", "aare_pct_published", "aare_pct_tuned", "aare_pct_loo", "depth", "multiplier", "in_range", "points"} {
 		if _, ok := rk.Properties["bo"][0][k]; !ok {
 			t.Errorf("rank --json bo entry lacks %q", k)
 		}
@@ -165,6 +166,9 @@ func TestRankAndTuneJSON(t *testing.T) {
 	var tn struct {
 		Properties map[string]struct {
 			Family     string             `json:"family"`
+			Depth      string             `json:"depth"`
+			LOO        *float64           `json:"aare_pct_loo"`
+			Ladder     []map[string]any   `json:"ladder"`
 			Parameters map[string]float64 `json:"parameters"`
 			CI95       map[string][2]float64
 			Residuals  []map[string]any `json:"residuals"`
@@ -176,6 +180,18 @@ func TestRankAndTuneJSON(t *testing.T) {
 	pb := tn.Properties["pb"]
 	if pb.Family == "" || pb.Parameters["multiplier"] == 0 || len(pb.Residuals) == 0 {
 		t.Errorf("tune --json pb incomplete: %+v", pb)
+	}
+	// Every rung with its errors, the chosen one marked and named (the demo's pb bends: shape).
+	if pb.Depth != "shape" || pb.LOO == nil || len(pb.Ladder) != 4 {
+		t.Errorf("tune --json pb: depth %q, aare_pct_loo %v, %d rungs", pb.Depth, pb.LOO, len(pb.Ladder))
+	}
+	for _, r := range pb.Ladder {
+		if _, ok := r["aare_pct_loo"]; !ok {
+			t.Errorf("rung %v lacks aare_pct_loo", r["depth"])
+		}
+		if r["chosen"] == true && r["depth"] != pb.Depth {
+			t.Errorf("rung %v marked chosen, depth %q", r["depth"], pb.Depth)
+		}
 	}
 	if _, err := os.Stat(save); err != nil {
 		t.Errorf("tuning file not written: %v", err)
@@ -227,5 +243,27 @@ func TestDemoSummary(t *testing.T) {
 		if !strings.Contains(out, want) {
 			t.Errorf("summary lacks %q", want)
 		}
+	}
+}
+
+// Without --pressure, calc oil reports the oil at its bubble point. Check value: Standing's Pb
+// for Rsb 751 scf/STB, γg 0.851, 47.1 °API, 250 °F is 2,181 psia (Ahmed, Reservoir Engineering
+// Handbook, ch. 2, Standing example; from memory, hence 1 %).
+func TestCalcOilAtBubblePoint(t *testing.T) {
+	code, out, e := runCLI(t, "calc", "oil", "--api", "47.1", "--gas-gravity", "0.851", "--temperature", "250",
+		"--rsb", "751", "--pb", "standing", "--json")
+	if code != exitOK {
+		t.Fatalf("calc oil without --pressure: exit %d: %s", code, e)
+	}
+	var m struct {
+		P  float64 `json:"pressure_psia"`
+		Pb float64 `json:"pb_psia"`
+		Rs float64 `json:"rs_scf_stb"`
+	}
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(m.Pb/2181-1) > 0.01 || m.P != m.Pb || m.Rs != 751 {
+		t.Errorf("at the bubble point: p %.1f, Pb %.1f (want about 2181), Rs %.1f (want 751)", m.P, m.Pb, m.Rs)
 	}
 }

@@ -27,6 +27,19 @@ func finite(v float64) (float64, error) {
 	return v, nil
 }
 
+// checkCoefficients validates a coefficient vector given to a With function: n finite values.
+func checkCoefficients(c []float64, n int) error {
+	if len(c) != n {
+		return fmt.Errorf("%w: %d coefficients, want %d", ErrInput, len(c), n)
+	}
+	for _, v := range c {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return fmt.Errorf("%w: coefficient %g is not a finite number", ErrInput, v)
+		}
+	}
+	return nil
+}
+
 // inputError reports an unusable input value.
 func inputError(name string, v float64, want string) error {
 	return fmt.Errorf("%w: %s = %g, want %s", ErrInput, name, v, want)

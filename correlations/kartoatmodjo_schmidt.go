@@ -37,17 +37,31 @@ func ksGasGravity(o Oil) (float64, error) {
 
 // ksLogRsFactor returns ln K in Rs = K·p^(1/C4): K = C1 · γg100^C2 · 10^(C3·API/(T + 460)).
 // Working with ln K saves an exponential and a logarithm on the hot path.
-func ksLogRsFactor(o Oil) (lnK float64, c4 float64, err error) {
+func ksLogRsFactor(o Oil, cf []float64) (lnK float64, c4 float64, err error) {
 	g, err := ksGasGravity(o)
 	if err != nil {
 		return 0, 0, err
 	}
-	c := &ksLight
+	c := ksLight
+	c.c4, c.c1 = cf[1], cf[3]
 	if o.API <= 30 {
-		c = &ksHeavy
+		c = ksHeavy
+		c.c4, c.c1 = cf[0], cf[2]
 	}
 	return math.Log(c.c1) + c.c2*math.Log(g) + math.Ln10*c.c3*o.API/(o.Temperature+460), c.c4, nil
 }
+
+// KartoatmodjoSchmidtCoefficients are the constants of the Kartoatmodjo–Schmidt solution-gas
+// pair that a refit may change, both sets (the oil's API picks one): Rs = C1·γg100^C2·p^(1/C4)·
+// 10^(C3·API/(T + 460)).
+var KartoatmodjoSchmidtCoefficients = []Coefficient{
+	{ID: "c4_heavy", Value: ksHeavy.c4, Role: "C4 = 0.9986, 1/C4 the exponent of p (API ≤ 30)"},
+	{ID: "c4_light", Value: ksLight.c4, Role: "C4 = 0.9143, 1/C4 the exponent of p (API > 30)"},
+	{ID: "c1_heavy", Value: ksHeavy.c1, Role: "C1 = 0.05958 (API ≤ 30)"},
+	{ID: "c1_light", Value: ksLight.c1, Role: "C1 = 0.03150 (API > 30)"},
+}
+
+var ksPublished = [4]float64{ksHeavy.c4, ksLight.c4, ksHeavy.c1, ksLight.c1}
 
 // KartoatmodjoSchmidtSolutionGOR returns the solution GOR (scf/STB) at p psia, Kartoatmodjo
 // and Schmidt (1994), the published direction:
@@ -57,13 +71,22 @@ func ksLogRsFactor(o Oil) (lnK float64, c4 float64, err error) {
 // C1..C4 = 0.05958, 0.7972, 13.1405, 0.9986 for API ≤ 30 and 0.03150, 0.7587, 11.2895,
 // 0.9143 above, T °F.
 func KartoatmodjoSchmidtSolutionGOR(p float64, o Oil) (float64, error) {
+	return KartoatmodjoSchmidtSolutionGORWith(p, o, ksPublished[:])
+}
+
+// KartoatmodjoSchmidtSolutionGORWith is KartoatmodjoSchmidtSolutionGOR with the coefficients c
+// (KartoatmodjoSchmidtCoefficients order).
+func KartoatmodjoSchmidtSolutionGORWith(p float64, o Oil, c []float64) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
 	}
 	if err := checkPressure("p", p); err != nil {
 		return 0, err
 	}
-	lnK, c4, err := ksLogRsFactor(o)
+	if err := checkCoefficients(c, 4); err != nil {
+		return 0, err
+	}
+	lnK, c4, err := ksLogRsFactor(o, c)
 	if err != nil {
 		return 0, err
 	}
@@ -73,13 +96,22 @@ func KartoatmodjoSchmidtSolutionGOR(p float64, o Oil) (float64, error) {
 // KartoatmodjoSchmidtBubblePoint returns the bubble-point pressure (psia), the closed-form
 // inverse published with it: Pb = [Rsb / (C1 · γg100^C2 · 10^(C3·API/(T + 460)))]^C4.
 func KartoatmodjoSchmidtBubblePoint(rsb float64, o Oil) (float64, error) {
+	return KartoatmodjoSchmidtBubblePointWith(rsb, o, ksPublished[:])
+}
+
+// KartoatmodjoSchmidtBubblePointWith is KartoatmodjoSchmidtBubblePoint with the coefficients c
+// (KartoatmodjoSchmidtCoefficients order).
+func KartoatmodjoSchmidtBubblePointWith(rsb float64, o Oil, c []float64) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
 	}
 	if err := checkGOR("Rsb", rsb); err != nil {
 		return 0, err
 	}
-	lnK, c4, err := ksLogRsFactor(o)
+	if err := checkCoefficients(c, 4); err != nil {
+		return 0, err
+	}
+	lnK, c4, err := ksLogRsFactor(o, c)
 	if err != nil {
 		return 0, err
 	}
@@ -93,19 +125,43 @@ func KartoatmodjoSchmidtBubblePoint(rsb float64, o Oil) (float64, error) {
 //
 // T °F. p is not used.
 func KartoatmodjoSchmidtOilFVF(p, rs float64, o Oil) (float64, error) {
+	return KartoatmodjoSchmidtOilFVFWith(p, rs, o, ksFVFPublished[:])
+}
+
+// KartoatmodjoSchmidtFVFCoefficients are the constants of the Kartoatmodjo–Schmidt Bo that a
+// refit may change: Bo = a + b·F^n, F = Rs^e·γg100^0.25·γo^−1.5 + t·T.
+var KartoatmodjoSchmidtFVFCoefficients = []Coefficient{
+	{ID: "n", Value: 1.5, Role: "1.5, the exponent of F"},
+	{ID: "t", Value: 0.45, Role: "0.45, the factor of T in F"},
+	{ID: "e", Value: 0.755, Role: "0.755, the exponent of Rs in F"},
+	{ID: "a", Value: 0.98496, Role: "0.98496"},
+	{ID: "b", Value: 1e-4, Role: "1e−4"},
+}
+
+var ksFVFPublished = [5]float64{1.5, 0.45, 0.755, 0.98496, 1e-4}
+
+// KartoatmodjoSchmidtOilFVFWith is KartoatmodjoSchmidtOilFVF with the coefficients c
+// (KartoatmodjoSchmidtFVFCoefficients order).
+func KartoatmodjoSchmidtOilFVFWith(p, rs float64, o Oil, c []float64) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
 	}
 	if err := checkGOR("Rs", rs); err != nil {
 		return 0, err
 	}
+	if err := checkCoefficients(c, 5); err != nil {
+		return 0, err
+	}
 	g, err := ksGasGravity(o)
 	if err != nil {
 		return 0, err
 	}
-	f := math.Exp(0.755*math.Log(rs)+0.25*math.Log(g)-1.5*math.Log(o.OilGravity())) + 0.45*o.Temperature
+	f := math.Exp(c[2]*math.Log(rs)+0.25*math.Log(g)-1.5*math.Log(o.OilGravity())) + c[1]*o.Temperature
 	if !(f > 0) {
 		return 0, inputError("temperature", o.Temperature, "high enough for a positive Kartoatmodjo–Schmidt correlating number")
 	}
-	return finite(0.98496 + 1e-4*f*math.Sqrt(f))
+	if c[0] == 1.5 {
+		return finite(c[3] + c[4]*f*math.Sqrt(f))
+	}
+	return finite(c[3] + c[4]*pow(f, c[0]))
 }

@@ -22,22 +22,41 @@ func pfX(o Oil) float64 {
 // for heavy oils); below standard pressure (14.7 psia) the pair is continued linearly through
 // the origin, Pb = 14.7·Rsb/Rs(14.7), so that it stays positive, monotonic and exactly inverse.
 func PetroskyFarshadBubblePoint(rsb float64, o Oil) (float64, error) {
+	return PetroskyFarshadBubblePointWith(rsb, o, pfPublished[:])
+}
+
+// PetroskyFarshadCoefficients are the constants of the Petrosky–Farshad solution-gas pair that
+// a refit may change: Pb = scale·[Rsb^exponent/(γg^0.8439·10^X) − offset].
+var PetroskyFarshadCoefficients = []Coefficient{
+	{ID: "offset", Value: 12.340, Role: "12.340 in [… − 12.340]"},
+	{ID: "exponent", Value: 0.577421, Role: "0.577421, the exponent of Rsb"},
+	{ID: "scale", Value: 112.727, Role: "112.727, the pressure scale"},
+}
+
+var pfPublished = [3]float64{12.340, 0.577421, 112.727}
+
+// PetroskyFarshadBubblePointWith is PetroskyFarshadBubblePoint with the coefficients c
+// (PetroskyFarshadCoefficients order).
+func PetroskyFarshadBubblePointWith(rsb float64, o Oil, c []float64) (float64, error) {
 	if err := checkOilPositiveT(o); err != nil {
 		return 0, err
 	}
 	if err := checkGOR("Rsb", rsb); err != nil {
 		return 0, err
 	}
+	if err := checkCoefficients(c, 3); err != nil {
+		return 0, err
+	}
 	x := pfX(o)
-	pb := 112.727 * (pow(rsb, 0.577421)/(pow(o.GasGravity, 0.8439)*pow10(x)) - 12.340)
+	pb := c[2] * (pow(rsb, c[1])/(pow(o.GasGravity, 0.8439)*pow10(x)) - c[0])
 	if pb < pLinear { // equivalent to rsb < Rs(14.7), the published form being monotonic
-		return finite(pLinear * rsb / pfRs(pLinear, o, x))
+		return finite(pLinear * rsb / pfRs(pLinear, o, x, c))
 	}
 	return finite(pb)
 }
 
-func pfRs(p float64, o Oil, x float64) float64 {
-	return pow((p/112.727+12.340)*pow(o.GasGravity, 0.8439)*pow10(x), 1/0.577421)
+func pfRs(p float64, o Oil, x float64, c []float64) float64 {
+	return pow((p/c[2]+c[0])*pow(o.GasGravity, 0.8439)*pow10(x), 1/c[1])
 }
 
 // PetroskyFarshadSolutionGOR returns the solution GOR (scf/STB) at p psia, the closed-form
@@ -47,17 +66,26 @@ func pfRs(p float64, o Oil, x float64) float64 {
 //
 // continued linearly to Rs = 0 at p = 0 below 14.7 psia (see PetroskyFarshadBubblePoint).
 func PetroskyFarshadSolutionGOR(p float64, o Oil) (float64, error) {
+	return PetroskyFarshadSolutionGORWith(p, o, pfPublished[:])
+}
+
+// PetroskyFarshadSolutionGORWith is PetroskyFarshadSolutionGOR with the coefficients c
+// (PetroskyFarshadCoefficients order).
+func PetroskyFarshadSolutionGORWith(p float64, o Oil, c []float64) (float64, error) {
 	if err := checkOilPositiveT(o); err != nil {
 		return 0, err
 	}
 	if err := checkPressure("p", p); err != nil {
 		return 0, err
 	}
+	if err := checkCoefficients(c, 3); err != nil {
+		return 0, err
+	}
 	x := pfX(o)
 	if p < pLinear {
-		return finite(pfRs(pLinear, o, x) * p / pLinear)
+		return finite(pfRs(pLinear, o, x, c) * p / pLinear)
 	}
-	return finite(pfRs(p, o, x))
+	return finite(pfRs(p, o, x, c))
 }
 
 // PetroskyFarshadOilFVF returns the saturated oil formation volume factor (rb/STB), Petrosky
@@ -67,15 +95,36 @@ func PetroskyFarshadSolutionGOR(p float64, o Oil) (float64, error) {
 //
 // Data Bob 1.118–1.623 rb/STB. p is not used.
 func PetroskyFarshadOilFVF(p, rs float64, o Oil) (float64, error) {
+	return PetroskyFarshadOilFVFWith(p, rs, o, pfFVFPublished[:])
+}
+
+// PetroskyFarshadFVFCoefficients are the constants of the Petrosky–Farshad Bo that a refit may
+// change: Bo = a + b·[Rs^e·γg^0.2914/γo^0.6265 + t·T^0.5371]^n.
+var PetroskyFarshadFVFCoefficients = []Coefficient{
+	{ID: "n", Value: 3.0936, Role: "3.0936, the outer exponent"},
+	{ID: "t", Value: 0.24626, Role: "0.24626, the factor of T^0.5371"},
+	{ID: "e", Value: 0.3738, Role: "0.3738, the exponent of Rs"},
+	{ID: "a", Value: 1.0113, Role: "1.0113"},
+	{ID: "b", Value: 7.2046e-5, Role: "7.2046e−5"},
+}
+
+var pfFVFPublished = [5]float64{3.0936, 0.24626, 0.3738, 1.0113, 7.2046e-5}
+
+// PetroskyFarshadOilFVFWith is PetroskyFarshadOilFVF with the coefficients c
+// (PetroskyFarshadFVFCoefficients order).
+func PetroskyFarshadOilFVFWith(p, rs float64, o Oil, c []float64) (float64, error) {
 	if err := checkOilPositiveT(o); err != nil {
 		return 0, err
 	}
 	if err := checkGOR("Rs", rs); err != nil {
 		return 0, err
 	}
-	f := pow(rs, 0.3738)*pow(o.GasGravity, 0.2914)/pow(o.OilGravity(), 0.6265) +
-		0.24626*pow(o.Temperature, 0.5371)
-	return finite(1.0113 + 7.2046e-5*pow(f, 3.0936))
+	if err := checkCoefficients(c, 5); err != nil {
+		return 0, err
+	}
+	f := pow(rs, c[2])*pow(o.GasGravity, 0.2914)/pow(o.OilGravity(), 0.6265) +
+		c[1]*pow(o.Temperature, 0.5371)
+	return finite(c[3] + c[4]*pow(f, c[0]))
 }
 
 // pfCoFactor returns A = 1.705e−7 · Rsb^0.69357 · γg^0.1885 · API^0.3272 · T^0.6729, so that

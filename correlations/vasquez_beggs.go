@@ -60,18 +60,48 @@ func vbGasGravity(o Oil) (float64, error) {
 //
 // C1, C2, C3 = 0.0362, 1.0937, 25.7240 for API ≤ 30 and 0.0178, 1.1870, 23.931 above, T °F.
 func VasquezBeggsSolutionGOR(p float64, o Oil) (float64, error) {
+	return VasquezBeggsSolutionGORWith(p, o, vbPublished[:])
+}
+
+// VasquezBeggsCoefficients are the constants of the Vasquez–Beggs solution-gas pair that a
+// refit may change, both sets (the oil's API picks one): Rs = C1·γgs·p^C2·exp(C3·API/(T+460)).
+var VasquezBeggsCoefficients = []Coefficient{
+	{ID: "c2_heavy", Value: vbHeavy.c2, Role: "C2 = 1.0937, the exponent of p (API ≤ 30)"},
+	{ID: "c2_light", Value: vbLight.c2, Role: "C2 = 1.1870, the exponent of p (API > 30)"},
+	{ID: "c1_heavy", Value: vbHeavy.c1, Role: "C1 = 0.0362 (API ≤ 30)"},
+	{ID: "c1_light", Value: vbLight.c1, Role: "C1 = 0.0178 (API > 30)"},
+	{ID: "c3_heavy", Value: vbHeavy.c3, Role: "C3 = 25.7240 (API ≤ 30)"},
+	{ID: "c3_light", Value: vbLight.c3, Role: "C3 = 23.931 (API > 30)"},
+}
+
+var vbPublished = [6]float64{vbHeavy.c2, vbLight.c2, vbHeavy.c1, vbLight.c1, vbHeavy.c3, vbLight.c3}
+
+// vbRsCoefs returns C1, C2, C3 of the oil's API class from a VasquezBeggsCoefficients vector.
+func vbRsCoefs(api float64, c []float64) (c1, c2, c3 float64) {
+	if api <= 30 {
+		return c[2], c[0], c[4]
+	}
+	return c[3], c[1], c[5]
+}
+
+// VasquezBeggsSolutionGORWith is VasquezBeggsSolutionGOR with the coefficients c
+// (VasquezBeggsCoefficients order).
+func VasquezBeggsSolutionGORWith(p float64, o Oil, c []float64) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
 	}
 	if err := checkPressure("p", p); err != nil {
 		return 0, err
 	}
+	if err := checkCoefficients(c, 6); err != nil {
+		return 0, err
+	}
 	g, err := vbGasGravity(o)
 	if err != nil {
 		return 0, err
 	}
-	k := vbCoefs(o.API)
-	return finite(k.c1 * g * pow(p, k.c2) * math.Exp(k.c3*o.API/(o.Temperature+460)))
+	c1, c2, c3 := vbRsCoefs(o.API, c)
+	return finite(c1 * g * pow(p, c2) * math.Exp(c3*o.API/(o.Temperature+460)))
 }
 
 // VasquezBeggsBubblePoint returns the bubble-point pressure (psia) for rsb scf/STB, the
@@ -79,18 +109,27 @@ func VasquezBeggsSolutionGOR(p float64, o Oil) (float64, error) {
 //
 //	Pb = [Rsb / (C1·γgs·exp(C3·API/(T + 460)))]^(1/C2).
 func VasquezBeggsBubblePoint(rsb float64, o Oil) (float64, error) {
+	return VasquezBeggsBubblePointWith(rsb, o, vbPublished[:])
+}
+
+// VasquezBeggsBubblePointWith is VasquezBeggsBubblePoint with the coefficients c
+// (VasquezBeggsCoefficients order), the inverse of VasquezBeggsSolutionGORWith.
+func VasquezBeggsBubblePointWith(rsb float64, o Oil, c []float64) (float64, error) {
 	if err := checkOil(o); err != nil {
 		return 0, err
 	}
 	if err := checkGOR("Rsb", rsb); err != nil {
 		return 0, err
 	}
+	if err := checkCoefficients(c, 6); err != nil {
+		return 0, err
+	}
 	g, err := vbGasGravity(o)
 	if err != nil {
 		return 0, err
 	}
-	k := vbCoefs(o.API)
-	return finite(pow(rsb/(k.c1*g*math.Exp(k.c3*o.API/(o.Temperature+460))), 1/k.c2))
+	c1, c2, c3 := vbRsCoefs(o.API, c)
+	return finite(pow(rsb/(c1*g*math.Exp(c3*o.API/(o.Temperature+460))), 1/c2))
 }
 
 // VasquezBeggsOilFVF returns the saturated oil formation volume factor (rb/STB), Vasquez and

@@ -13,8 +13,10 @@ import (
 	"labmatch/lab"
 )
 
-// FormatVersion is the version of the tuning-file layout written by this package.
-const FormatVersion = 1
+// FormatVersion is the version of the tuning-file layout written by this package. Version 2
+// records the depth of every property, its ladder and the pb bend and refitted coefficients;
+// version 1 files (one multiplier, or multiplier and shift, per property) still load.
+const FormatVersion = 2
 
 // ErrFingerprint means a tuning file was made for other report files than the ones given.
 var ErrFingerprint = errors.New("export: the tuning file was made from a different report (fingerprint mismatch)")
@@ -32,7 +34,10 @@ type TuningFile struct {
 
 // TuningOptions are the options the tuning ran with.
 type TuningOptions struct {
-	Mode           string  `json:"mode"`
+	// Depth is the depth forced for every property; "" = chosen per property by leave-one-out.
+	Depth string `json:"depth"`
+	// Mode is the version 1 form of the depth: "multiplier" or "multiplier+shift".
+	Mode           string  `json:"mode,omitempty"`
 	Loss           string  `json:"loss"`
 	HuberDelta     float64 `json:"huber_delta"`
 	PseudoCritical string  `json:"pseudo_critical"`
@@ -40,8 +45,15 @@ type TuningOptions struct {
 
 // PropertyTuning is the tuned state of one property.
 type PropertyTuning struct {
-	Family     string                `json:"family"`
-	Parameters fit.Params            `json:"parameters"`
+	Family string `json:"family"`
+	// Depth is the rung of the parameters (absent in version 1 files: see TuningOptions.Mode).
+	Depth          fit.Depth  `json:"depth,omitempty"`
+	Parameters     fit.Params `json:"parameters"`
+	CoefficientIDs []string   `json:"coefficient_ids,omitempty"` // names of parameters.coefficients
+	AARELOO        *float64   `json:"aare_pct_loo,omitempty"`
+	Ladder         []fit.Rung `json:"ladder,omitempty"`
+	NoFit          string     `json:"no_fit,omitempty"`
+
 	ShiftUnit  string                `json:"shift_unit"`
 	CI95       map[string][2]float64 `json:"ci95,omitempty"`
 	CIAssumed  bool                  `json:"ci95_assumed_uncertainty,omitempty"`
@@ -56,14 +68,15 @@ type PropertyTuning struct {
 func NewTuningFile(tool string, r *lab.Report, results map[fit.PropertyID]fit.Result, opts fit.Options, notes []string) TuningFile {
 	opts = opts.Resolved()
 	tf := TuningFile{FormatVersion: FormatVersion, Tool: tool, Report: r.Fluid.Sample, Fingerprint: r.Fingerprint,
-		Options:    TuningOptions{Mode: string(opts.Mode), Loss: string(opts.Loss), HuberDelta: opts.HuberDelta, PseudoCritical: opts.PseudoCritical},
+		Options:    TuningOptions{Depth: string(opts.Depth), Loss: string(opts.Loss), HuberDelta: opts.HuberDelta, PseudoCritical: opts.PseudoCritical},
 		Properties: map[string]PropertyTuning{}, Notes: notes}
 	for p, res := range results {
 		ex := res.Excluded
 		if ex == nil {
 			ex = []int{}
 		}
-		tf.Properties[string(p)] = PropertyTuning{Family: res.Family, Parameters: res.Params, ShiftUnit: res.ShiftUnit, CI95: res.CI95,
+		tf.Properties[string(p)] = PropertyTuning{Family: res.Family, Depth: res.Depth, Parameters: res.Params, CoefficientIDs: res.CoefficientIDs,
+			AARELOO: res.LOO, Ladder: res.Ladder, NoFit: res.NoFit, ShiftUnit: res.ShiftUnit, CI95: res.CI95,
 			CIAssumed: res.CIAssumed, Published: res.Published, Tuned: res.Tuned, Excluded: ex, Flags: res.Flags, OutOfRange: res.OutOfRange}
 	}
 	return tf
@@ -71,7 +84,7 @@ func NewTuningFile(tool string, r *lab.Report, results map[fit.PropertyID]fit.Re
 
 // FitOptions returns the options recorded in the file, with the excluded points.
 func (tf TuningFile) FitOptions() fit.Options {
-	o := fit.Options{Mode: fit.Mode(tf.Options.Mode), Loss: fit.Loss(tf.Options.Loss), HuberDelta: tf.Options.HuberDelta,
+	o := fit.Options{Depth: fit.Depth(tf.Options.Depth), Loss: fit.Loss(tf.Options.Loss), HuberDelta: tf.Options.HuberDelta,
 		PseudoCritical: tf.Options.PseudoCritical, Excluded: map[fit.PropertyID][]int{}}
 	for p, pt := range tf.Properties {
 		if len(pt.Excluded) > 0 {
@@ -85,7 +98,8 @@ func (tf TuningFile) FitOptions() fit.Options {
 func (tf TuningFile) Results() map[fit.PropertyID]fit.Result {
 	out := map[fit.PropertyID]fit.Result{}
 	for p, pt := range tf.Properties {
-		out[fit.PropertyID(p)] = fit.Result{Property: fit.PropertyID(p), Family: pt.Family, Params: pt.Parameters, ShiftUnit: pt.ShiftUnit,
+		out[fit.PropertyID(p)] = fit.Result{Property: fit.PropertyID(p), Family: pt.Family, Depth: pt.Depth, Params: pt.Parameters, ShiftUnit: pt.ShiftUnit,
+			CoefficientIDs: pt.CoefficientIDs, LOO: pt.AARELOO, Ladder: pt.Ladder, NoFit: pt.NoFit,
 			CI95: pt.CI95, Published: pt.Published, Tuned: pt.Tuned, Excluded: pt.Excluded, Flags: pt.Flags, OutOfRange: pt.OutOfRange}
 	}
 	return out
@@ -118,21 +132,43 @@ func LoadTuning(path string) (TuningFile, error) {
 	if err := json.Unmarshal(data, &tf); err != nil {
 		return TuningFile{}, fmt.Errorf("export: %s: not a tuning file: %w", path, err)
 	}
-	if tf.FormatVersion != FormatVersion {
-		return TuningFile{}, fmt.Errorf("export: %s: format version %d, this labmatch reads %d", path, tf.FormatVersion, FormatVersion)
+	if tf.FormatVersion != 1 && tf.FormatVersion != FormatVersion {
+		return TuningFile{}, fmt.Errorf("export: %s: format version %d, this labmatch reads 1 and %d", path, tf.FormatVersion, FormatVersion)
 	}
 	if err := tf.validate(); err != nil {
 		return TuningFile{}, fmt.Errorf("export: %s: %w", path, err)
 	}
+	if tf.FormatVersion == 1 {
+		tf.upgrade()
+	}
 	return tf, nil
+}
+
+// upgrade turns a validated version 1 file into the version 2 form: its mode becomes the
+// depth of every property (multiplier+shift is the shape depth).
+func (tf *TuningFile) upgrade() {
+	d := fit.DepthMultiplier
+	if tf.Options.Mode == "multiplier+shift" {
+		d = fit.DepthShape
+	}
+	for p, pt := range tf.Properties {
+		pt.Depth = d
+		tf.Properties[p] = pt
+	}
+	tf.Options.Mode, tf.Options.Depth = "", ""
+	tf.FormatVersion = FormatVersion
 }
 
 // validate checks what a hand-edited or damaged tuning file could get wrong.
 func (tf TuningFile) validate() error {
-	switch fit.Mode(tf.Options.Mode) {
-	case "", fit.Multiplier, fit.MultiplierShift:
-	default:
-		return fmt.Errorf("options: mode %q, want %q or %q", tf.Options.Mode, fit.Multiplier, fit.MultiplierShift)
+	if tf.FormatVersion == 1 {
+		switch tf.Options.Mode {
+		case "", "multiplier", "multiplier+shift":
+		default:
+			return fmt.Errorf("options: mode %q, want multiplier or multiplier+shift", tf.Options.Mode)
+		}
+	} else if tf.Options.Depth != "" && !validDepth(fit.Depth(tf.Options.Depth)) {
+		return fmt.Errorf("options: depth %q, want one of %v or empty", tf.Options.Depth, fit.Depths)
 	}
 	switch fit.Loss(tf.Options.Loss) {
 	case "", fit.Relative, fit.Absolute, fit.Huber:
@@ -161,16 +197,42 @@ func (tf TuningFile) validate() error {
 		if !slices.Contains(fams, pt.Family) {
 			return fmt.Errorf("property %q: unknown family %q (known: %v)", p, pt.Family, fams)
 		}
-		m := pt.Parameters.Multiplier
-		if !(m >= fit.MinMultiplier && m <= fit.MaxMultiplier) {
+		if tf.FormatVersion > 1 && !validDepth(pt.Depth) {
+			return fmt.Errorf("property %q: depth %q, want one of %v", p, pt.Depth, fit.Depths)
+		}
+		q := pt.Parameters
+		m := q.Multiplier
+		if fit.PropertyID(p) == fit.Pb {
+			// The pb scale is fixed by the report's Pb and has no bound of its own.
+			if !(m > 0) || math.IsInf(m, 0) {
+				return fmt.Errorf("property %q: pressure scale %g, want a finite value > 0", p, m)
+			}
+		} else if !(m >= fit.MinMultiplier && m <= fit.MaxMultiplier) {
 			return fmt.Errorf("property %q: multiplier %g outside [%g, %g]", p, m, fit.MinMultiplier, fit.MaxMultiplier)
 		}
-		if math.IsNaN(pt.Parameters.Shift) || math.IsInf(pt.Parameters.Shift, 0) {
-			return fmt.Errorf("property %q: shift %g is not a number", p, pt.Parameters.Shift)
+		if math.IsNaN(q.Shift) || math.IsInf(q.Shift, 0) {
+			return fmt.Errorf("property %q: shift %g is not a number", p, q.Shift)
 		}
-		if fit.Mode(tf.Options.Mode) != fit.MultiplierShift && pt.Parameters.Shift != 0 {
-			return fmt.Errorf("property %q: shift %g in mode %q, which has no shift", p, pt.Parameters.Shift, tf.Options.Mode)
+		if tf.FormatVersion == 1 && tf.Options.Mode != "multiplier+shift" && q.Shift != 0 {
+			return fmt.Errorf("property %q: shift %g in mode %q, which has no shift", p, q.Shift, tf.Options.Mode)
+		}
+		if e := q.Bend; e != 0 && !(e >= fit.MinMultiplier && e <= fit.MaxMultiplier) {
+			return fmt.Errorf("property %q: exponent %g outside [%g, %g]", p, e, fit.MinMultiplier, fit.MaxMultiplier)
+		}
+		if q.Coefficients != nil {
+			cs := fit.DeclaredCoefficients(fit.PropertyID(p), pt.Family)
+			if len(cs) != len(q.Coefficients) {
+				return fmt.Errorf("property %q: %d coefficients, family %s declares %d", p, len(q.Coefficients), pt.Family, len(cs))
+			}
+			for j, c := range cs {
+				r := q.Coefficients[j] / c.Value
+				if !(r >= fit.MinCoefficientRatio*0.999999 && r <= fit.MaxCoefficientRatio*1.000001) {
+					return fmt.Errorf("property %q: coefficient %s = %g is outside %g–%g times its published %g", p, c.ID, q.Coefficients[j], fit.MinCoefficientRatio, fit.MaxCoefficientRatio, c.Value)
+				}
+			}
 		}
 	}
 	return nil
 }
+
+func validDepth(d fit.Depth) bool { return slices.Contains(fit.Depths, d) }

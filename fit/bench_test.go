@@ -48,3 +48,43 @@ func BenchmarkRankDemo(b *testing.B) {
 		sinkRanking = Rank(ds, Options{})
 	}
 }
+
+// BenchmarkLadderDemo tunes the best-ranked family of every property of the default demo report
+// on the whole ladder, with leave-one-out errors for every rung (issue target: under 20 ms on
+// one core; the workbench refits this on a keystroke).
+func BenchmarkLadderDemo(b *testing.B) {
+	r, err := samples.Load(samples.Default)
+	if err != nil {
+		b.Fatal(err)
+	}
+	ds, err := NewDataset(r)
+	if err != nil {
+		b.Fatal(err)
+	}
+	choice := Choice{}
+	for p, es := range Rank(ds, Options{}) {
+		choice[p] = es[0].Family
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		res, err := TuneAll(ds, choice, Options{})
+		if err != nil {
+			b.Fatal(err)
+		}
+		sinkResult = res[Pb]
+	}
+}
+
+// BenchmarkTuneBoMultiplier tunes saturated Bo on a 10-point DL at the multiplier depth with its
+// leave-one-out error (issue target: under 100 µs).
+func BenchmarkTuneBoMultiplier(b *testing.B) {
+	ds := synthDatasetB(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		r, err := Tune(ds, Bo, "standing", Options{Depth: DepthMultiplier})
+		if err != nil {
+			b.Fatal(err)
+		}
+		sinkResult = r
+	}
+}

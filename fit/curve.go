@@ -63,7 +63,7 @@ func Curve(ds *Dataset, prop PropertyID, family string, q Params, opts Options, 
 			}
 			out[i] = val[0]
 		case affine:
-			if m.basis(one, a, b) != nil {
+			if m.basis(q.Coefficients, one, a, b) != nil {
 				continue
 			}
 			out[i] = a[0] + q.Multiplier*b[0] + q.Shift

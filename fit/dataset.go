@@ -58,11 +58,15 @@ func NewDataset(r *lab.Report) (*Dataset, error) {
 	if ds.StdTemp == 0 {
 		ds.StdTemp = 60
 	}
-	if len(t.Stages) > 1 { // a first stage ahead of the stock tank
+	// The first stage's conditions and gas for the families that normalise the separator gas
+	// (Vasquez–Beggs, Kartoatmodjo–Schmidt): for a single flash the separator is the stock tank.
+	if len(t.Stages) > 0 {
 		ds.Oil.SepPressure = t.Stages[0].Pressure
 		ds.Oil.SepTemperature = t.Stages[0].Temperature
 		ds.Oil.SepGasGravity = t.Stages[0].GasGravity
+		ds.Oil.SepStagesGasGravity = t.SeparatorGasGravity()
 	}
+	ds.Oil.Rsb = ds.Rsb
 
 	// pb: the report's Pb at Rsb, then the adjusted Rs below Pb.
 	ds.add(Pb, Point{Quantity: "Pb", Unit: "psia", Pressure: ds.Pb, Lab: ds.Pb, Rs: ds.Rsb, Source: "fluid.csv", Line: r.Fluid.Line["saturation pressure"]})
@@ -89,9 +93,19 @@ func NewDataset(r *lab.Report) (*Dataset, error) {
 	if zeroRs > 0 {
 		ds.Notes = append(ds.Notes, fmt.Sprintf("pb: %d stage(s) with Rs = 0 left out (a relative error needs a value above zero)", zeroRs))
 	}
-	// bo: adjusted Bo at and below Pb with the lab Rs.
+	// bo: adjusted Bo at and below Pb with the lab Rs. Where the adjusted Rs came out below
+	// zero (the residual oil of a DL that liberated more gas than the separator test), the
+	// conversion to separator basis no longer describes the oil: its Bo is left out too.
+	clampedBo := 0
 	for _, p := range basis.Below {
+		if p.Clamped {
+			clampedBo++
+			continue
+		}
 		ds.add(Bo, Point{Quantity: "Bo", Unit: "rb/STB", Pressure: p.Pressure, Lab: p.Bo, Rs: p.Rs, Source: p.Source, Line: p.Line})
+	}
+	if clampedBo > 0 {
+		ds.Notes = append(ds.Notes, fmt.Sprintf("bo: %d stage(s) whose adjusted Rs came out below zero left out: the separator-basis conversion does not hold there", clampedBo))
 	}
 	// co: average compressibility from the CCE's saturation pressure to p. The relative
 	// volumes are V/Vsat at the CCE's own Psat, which may differ a little from fluid.csv's.

@@ -7,11 +7,13 @@ import (
 	"labmatch/samples"
 )
 
-// Tune the saturated Bo of the demo black oil with Standing's correlation.
+// Tune the solution-gas pair of the demo black oil with Standing's correlation: the ladder
+// chooses its depth by leave-one-out error, and the tuned Pb is the report's.
 func ExampleTune() {
 	r, _ := samples.Load("tr3-black")
 	ds, _ := fit.NewDataset(r)
-	res, _ := fit.Tune(ds, fit.Bo, "standing", fit.Options{})
-	fmt.Printf("multiplier %.3g, AARE %.2g %% → %.2g %%\n", res.Params.Multiplier, res.Published.AARE, res.Tuned.AARE)
-	// Output: multiplier 0.959, AARE 0.62 % → 0.046 %
+	res, _ := fit.Tune(ds, fit.Pb, "standing", fit.Options{})
+	fmt.Printf("depth %s, AARE %.2g %% → %.2g %% (leave-one-out %.2g %%), Pb %.4g psia\n",
+		res.Depth, res.Published.AARE, res.Tuned.AARE, *res.LOO, res.Residuals[0].Tuned)
+	// Output: depth shape, AARE 6.5 % → 0.3 % (leave-one-out 0.34 %), Pb 3054 psia
 }

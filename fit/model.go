@@ -33,8 +33,8 @@ type Model struct {
 	Params      map[PropertyID]Params
 	Untuned     []PropertyID // properties evaluated with a published default family
 
-	sg    correlations.SolutionGasFamily
-	bo    correlations.OilFVFFamily
+	sg    pbModel
+	bo    boModel
 	co    correlations.CompressibilityFamily
 	coLow *correlations.CompressibilityFamily
 	sat   correlations.SatViscosityFamily
@@ -68,12 +68,30 @@ func NewModel(ds *Dataset, results map[PropertyID]Result, opts Options) (*Model,
 			m.Untuned = append(m.Untuned, p)
 		}
 	}
-	var err error
-	if m.sg, err = correlations.SolutionGasByID(m.Families[Pb]); err != nil {
+	sg, err := correlations.SolutionGasByID(m.Families[Pb])
+	if err != nil {
 		return nil, err
 	}
-	if m.bo, err = correlations.OilFVFByID(m.Families[Bo]); err != nil {
+	oil := m.Oil
+	if oil.Rsb == 0 {
+		oil.Rsb = m.Rsb
+	}
+	m.sg = pbModel{sg, oil, m.Rsb}
+	bo, err := correlations.OilFVFByID(m.Families[Bo])
+	if err != nil {
 		return nil, err
+	}
+	m.bo = boModel{bo, m.Oil}
+	for _, p := range []PropertyID{Pb, Bo} {
+		var n int
+		if p == Pb {
+			n = len(sg.Coefficients)
+		} else {
+			n = len(bo.Coefficients)
+		}
+		if c := m.Params[p].Coefficients; c != nil && len(c) != n {
+			return nil, fmt.Errorf("fit: model: %s %s: %d coefficients, the family declares %d", p, m.Families[p], len(c), n)
+		}
 	}
 	if m.co, err = correlations.CompressibilityByID(m.Families[Co]); err != nil {
 		return nil, err
@@ -97,12 +115,9 @@ func NewModel(ds *Dataset, results map[PropertyID]Result, opts Options) (*Model,
 	}
 	m.z = zm.(zModel)
 
-	q := m.Params[Pb]
-	pb, err := m.sg.BubblePoint(m.Rsb, m.Oil)
-	if err != nil {
+	if m.Pb, err = m.sg.pb(m.Params[Pb], m.Rsb); err != nil {
 		return nil, fmt.Errorf("fit: model: bubble point: %w", err)
 	}
-	m.Pb = q.Multiplier*pb + q.Shift
 	if m.Bob, err = m.boSat(m.Pb, m.Rsb); err != nil {
 		return nil, fmt.Errorf("fit: model: Bo at Pb: %w", err)
 	}
@@ -122,12 +137,7 @@ func (m *Model) Rs(p float64) (float64, error) {
 	if p >= m.Pb {
 		return m.Rsb, nil
 	}
-	q := m.Params[Pb]
-	pp := (p - q.Shift) / q.Multiplier
-	if pp <= 0 {
-		return 0, nil
-	}
-	rs, err := m.sg.SolutionGOR(pp, m.Oil)
+	rs, err := m.sg.rs(m.Params[Pb], p)
 	return math.Max(0, math.Min(rs, m.Rsb)), err
 }
 
@@ -135,17 +145,16 @@ func (m *Model) Rs(p float64) (float64, error) {
 // oil at rs = Rsb, and above Rsb the hypothetical oils with more gas that a table needs when gas
 // re-dissolves (extrapolated beyond the report).
 func (m *Model) BubblePoint(rs float64) (float64, error) {
-	q := m.Params[Pb]
-	v, err := m.sg.BubblePoint(rs, m.Oil)
+	v, err := m.sg.pb(m.Params[Pb], rs)
 	if err != nil {
 		return 0, fmt.Errorf("fit: model: bubble point at Rs %g scf/STB: %w", rs, err)
 	}
-	return q.Multiplier*v + q.Shift, nil
+	return v, nil
 }
 
 func (m *Model) boSat(p, rs float64) (float64, error) {
-	v, err := m.bo.FVF(p, rs, m.Oil)
 	q := m.Params[Bo]
+	v, err := m.bo.value(q.Coefficients, p, rs)
 	return 1 + q.Multiplier*(v-1) + q.Shift, err
 }
 

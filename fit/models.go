@@ -8,19 +8,24 @@ import (
 )
 
 // model is how a property's family predicts its lab points: affine or nonlinear.
-type model any
+type model interface {
+	// coefficients are the family's declared refit coefficients; nil when it has none.
+	coefficients() []correlations.Coefficient
+}
 
 // nonlinear predicts a property at its points for given parameters. predict must not
 // allocate: it runs for every objective evaluation.
 type nonlinear interface {
+	model
 	predict(q Params, pts []Point, out []float64) error
 }
 
 // affine is a model whose prediction is a + m·b + s at every point, with a and b from the
-// published correlation. The tuner evaluates the correlation once and then only does the
-// arithmetic.
+// correlation with coefficients c (nil: published). With published coefficients the tuner
+// evaluates the correlation once and then only does the arithmetic.
 type affine interface {
-	basis(pts []Point, a, b []float64) error
+	model
+	basis(c []float64, pts []Point, a, b []float64) error
 }
 
 // newModel builds the model of one family of one property for a dataset. muDead and muB
@@ -29,7 +34,11 @@ func newModel(ds *Dataset, p PropertyID, family string, opts Options, muDead, mu
 	switch p {
 	case Pb:
 		f, err := correlations.SolutionGasByID(family)
-		return pbModel{f, ds.Oil}, err
+		oil := ds.Oil
+		if oil.Rsb == 0 {
+			oil.Rsb = ds.Rsb
+		}
+		return pbModel{f, oil, ds.Rsb}, err
 	case Bo:
 		f, err := correlations.OilFVFByID(family)
 		return boModel{f, ds.Oil}, err
@@ -56,28 +65,70 @@ func newModel(ds *Dataset, p PropertyID, family string, opts Options, muDead, mu
 	return nil, fmt.Errorf("fit: unknown property %q", p)
 }
 
-// pbModel: Pb_tuned(Rsb) = m·Pb(Rsb) + s and Rs_tuned(p) = Rs((p − s)/m), an exact inverse pair.
+// pbModel is the tuned solution-gas pair
+//
+//	Pb_tuned(R) = m·Pb_c(R') + s,  R' = Rsb·(R/Rsb)^(1/e),
+//	Rs_tuned(p) = Rsb·[Rs_c((p − s)/m)/Rsb]^e,
+//
+// Pb_c and Rs_c the family's pair with coefficients c (an exact inverse pair), e the bend. The
+// tuned pair is an exact inverse for every m > 0, e > 0 and c, and at R = Rsb the bend drops
+// out, so the anchor m = (Pb − s)/Pb_c(Rsb) makes Pb_tuned(Rsb) = Pb and Rs_tuned(Pb) = Rsb.
 type pbModel struct {
 	f   correlations.SolutionGasFamily
 	oil correlations.Oil
+	rsb float64 // the report's Rsb, the reference of the bend
+}
+
+func (m pbModel) coefficients() []correlations.Coefficient { return m.f.Coefficients }
+
+func (m pbModel) publishedPb(rs float64, c []float64) (float64, error) {
+	if c == nil || m.f.BubblePointWith == nil {
+		return m.f.BubblePoint(rs, m.oil)
+	}
+	return m.f.BubblePointWith(rs, m.oil, c)
+}
+
+func (m pbModel) publishedRs(p float64, c []float64) (float64, error) {
+	if c == nil || m.f.SolutionGORWith == nil {
+		return m.f.SolutionGOR(p, m.oil)
+	}
+	return m.f.SolutionGORWith(p, m.oil, c)
+}
+
+// pb is the tuned bubble point of an oil holding r scf/STB.
+func (m pbModel) pb(q Params, r float64) (float64, error) {
+	if e := q.bend(); e != 1 && r != m.rsb {
+		r = m.rsb * math.Pow(r/m.rsb, 1/e)
+	}
+	v, err := m.publishedPb(r, q.Coefficients)
+	return q.Multiplier*v + q.Shift, err
+}
+
+// rs is the tuned solution GOR at p (not limited to Rsb: callers clamp).
+func (m pbModel) rs(q Params, p float64) (float64, error) {
+	pp := (p - q.Shift) / q.Multiplier
+	if pp <= 0 {
+		return 0, nil
+	}
+	v, err := m.publishedRs(pp, q.Coefficients)
+	if err != nil {
+		return 0, err
+	}
+	if e := q.bend(); e != 1 && v > 0 {
+		v = m.rsb * math.Pow(v/m.rsb, e)
+	}
+	return v, nil
 }
 
 func (m pbModel) predict(q Params, pts []Point, out []float64) error {
 	for i, pt := range pts {
+		var v float64
+		var err error
 		if pt.Quantity == "Pb" {
-			v, err := m.f.BubblePoint(pt.Rs, m.oil)
-			if err != nil {
-				return err
-			}
-			out[i] = q.Multiplier*v + q.Shift
-			continue
+			v, err = m.pb(q, pt.Rs)
+		} else {
+			v, err = m.rs(q, pt.Pressure)
 		}
-		pp := (pt.Pressure - q.Shift) / q.Multiplier
-		if pp <= 0 {
-			out[i] = 0
-			continue
-		}
-		v, err := m.f.SolutionGOR(pp, m.oil)
 		if err != nil {
 			return err
 		}
@@ -86,15 +137,24 @@ func (m pbModel) predict(q Params, pts []Point, out []float64) error {
 	return nil
 }
 
-// boModel: Bo_tuned = 1 + m·(Bo − 1) + s.
+// boModel: Bo_tuned = 1 + m·(Bo_c − 1) + s.
 type boModel struct {
 	f   correlations.OilFVFFamily
 	oil correlations.Oil
 }
 
-func (m boModel) basis(pts []Point, a, b []float64) error {
+func (m boModel) coefficients() []correlations.Coefficient { return m.f.Coefficients }
+
+func (m boModel) value(c []float64, p, rs float64) (float64, error) {
+	if c == nil || m.f.FVFWith == nil {
+		return m.f.FVF(p, rs, m.oil)
+	}
+	return m.f.FVFWith(p, rs, m.oil, c)
+}
+
+func (m boModel) basis(c []float64, pts []Point, a, b []float64) error {
 	for i, pt := range pts {
-		v, err := m.f.FVF(pt.Pressure, pt.Rs, m.oil)
+		v, err := m.value(c, pt.Pressure, pt.Rs)
 		if err != nil {
 			return err
 		}
@@ -112,7 +172,9 @@ type coModel struct {
 	pb, rsb float64
 }
 
-func (m coModel) basis(pts []Point, a, b []float64) error {
+func (coModel) coefficients() []correlations.Coefficient { return nil }
+
+func (m coModel) basis(_ []float64, pts []Point, a, b []float64) error {
 	for i, pt := range pts {
 		rv, err := m.f.RelativeVolume(pt.Pressure, m.pb, m.rsb, m.oil)
 		if err != nil {
@@ -132,7 +194,9 @@ type muDeadModel struct {
 	oil correlations.Oil
 }
 
-func (m muDeadModel) basis(pts []Point, a, b []float64) error {
+func (muDeadModel) coefficients() []correlations.Coefficient { return nil }
+
+func (m muDeadModel) basis(_ []float64, pts []Point, a, b []float64) error {
 	v, err := m.f.Viscosity(m.oil)
 	if err != nil {
 		return err
@@ -150,7 +214,9 @@ type muSatModel struct {
 	muDead float64
 }
 
-func (m muSatModel) basis(pts []Point, a, b []float64) error {
+func (muSatModel) coefficients() []correlations.Coefficient { return nil }
+
+func (m muSatModel) basis(_ []float64, pts []Point, a, b []float64) error {
 	for i, pt := range pts {
 		v, err := m.f.Viscosity(m.muDead, pt.Rs, m.oil)
 		if err != nil {
@@ -169,7 +235,9 @@ type muUnderModel struct {
 	pb, mb float64
 }
 
-func (m muUnderModel) basis(pts []Point, a, b []float64) error {
+func (muUnderModel) coefficients() []correlations.Coefficient { return nil }
+
+func (m muUnderModel) basis(_ []float64, pts []Point, a, b []float64) error {
 	// Some published forms are not exactly μb at Pb (Kartoatmodjo–Schmidt: 1.00081·μb);
 	// the increase is taken from the family's own value at Pb so the tuned curve is continuous.
 	v0, err := m.f.Viscosity(m.pb, m.pb, m.mb, m.oil)
@@ -195,7 +263,9 @@ type zModel struct {
 	h2s, co2 float64
 }
 
-func (m zModel) basis(pts []Point, a, b []float64) error {
+func (zModel) coefficients() []correlations.Coefficient { return nil }
+
+func (m zModel) basis(_ []float64, pts []Point, a, b []float64) error {
 	for i, pt := range pts {
 		v, err := m.z(pt.Pressure, pt.GasGravity)
 		if err != nil {

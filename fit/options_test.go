@@ -14,7 +14,7 @@ func TestMultiplierShiftRecovery(t *testing.T) {
 	for i := range ds.Points[Bo] {
 		ds.Points[Bo][i].Lab += shift
 	}
-	r, err := Tune(ds, Bo, "standing", Options{Mode: MultiplierShift})
+	r, err := Tune(ds, Bo, "standing", Options{Depth: DepthShape})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -5,6 +5,7 @@ import (
 	"math"
 	"runtime"
 	"sort"
+	"strings"
 	"sync"
 
 	"labmatch/correlations"
@@ -61,11 +62,11 @@ func (ds *Dataset) chainInputs(dead, sat *Result) (muDead, muB float64, err erro
 // the measured dead-oil viscosity and viscosity at Pb, or published fallbacks when the report
 // has none (TuneAll chains the tuned values instead).
 func Tune(ds *Dataset, prop PropertyID, family string, opts Options) (Result, error) {
-	return tuneWith(ds, prop, family, opts, nil, nil, nil)
+	return tuneWith(ds, prop, family, opts, nil, nil, nil, "")
 }
 
 // tuneWith tunes (fixed == nil) or evaluates at fixed parameters one family of a property.
-func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, sat *Result, fixed *Params) (Result, error) {
+func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, sat *Result, fixed *Params, fixedDepth Depth) (Result, error) {
 	muDead, muB, err := 0.0, 0.0, error(nil)
 	if prop == MuSat || prop == MuUnder {
 		if muDead, muB, err = ds.chainInputs(dead, sat); err != nil {
@@ -80,62 +81,190 @@ func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, s
 	if err != nil {
 		return Result{}, err
 	}
-	res := Result{Property: prop, Family: family, Mode: opts.mode(), Excluded: append([]int(nil), opts.Excluded[prop]...)}
+	res := Result{Property: prop, Family: family, Excluded: append([]int(nil), opts.Excluded[prop]...), Anchored: pr.anchored}
 	sort.Ints(res.Excluded)
+	for _, c := range m.coefficients() {
+		res.CoefficientIDs = append(res.CoefficientIDs, c.ID)
+	}
 	pubVals := make([]float64, len(pr.pts))
 	if res.Published, err = pr.stats(Published, pubVals); err != nil {
 		return res, fmt.Errorf("fit: %s %s: the published correlation cannot be evaluated: %w", prop, family, err)
 	}
-	var q Params
+	var chosen *rungFit
 	if fixed != nil {
-		q = *fixed
-	} else {
-		var evals int
-		q, evals, err = pr.minimize()
-		res.Evals = evals
+		chosen, err = pr.evaluateFixed(*fixed, fixedDepth)
 		if err != nil {
 			return res, err
 		}
-	}
-	res.Params = q
-	tunedVals := make([]float64, len(pr.pts))
-	if res.Tuned, err = pr.stats(q, tunedVals); err != nil {
-		return res, err
-	}
-	for i, pt := range pr.pts {
-		res.Residuals = append(res.Residuals, Residual{Quantity: pt.Quantity, Unit: pt.Unit, Pressure: pt.Pressure,
-			Lab: pt.Lab, Published: pubVals[i], Tuned: tunedVals[i], Excluded: !pr.use[i], Source: pt.Source, Line: pt.Line})
-	}
-	half, assumed := pr.interval(q)
-	res.CIAssumed = assumed
-	if half != nil {
-		res.CI95 = map[string][2]float64{"multiplier": {q.Multiplier - half[0], q.Multiplier + half[0]}}
-		switch {
-		case len(half) > 1:
-			res.CI95["shift"] = [2]float64{q.Shift - half[1], q.Shift + half[1]}
-		case pr.anchored: // s = Pb − m·Pb_published: its interval follows from m's
-			hs := half[0] * pr.pbPub
-			res.CI95["shift"] = [2]float64{q.Shift - hs, q.Shift + hs}
+	} else {
+		if chosen, err = pr.ladder(&res, opts.Depth); err != nil {
+			return res, err
 		}
 	}
-	res.ShiftUnit, res.Shifted = shiftUnit(prop, pr.pts), pr.shift || pr.anchored
-	res.Flags = append(append([]string(nil), pr.notes...), multiplierFlags(q)...)
+	res.Params, res.Depth, res.Tuned, res.LOO = chosen.q, chosen.rung.Depth, chosen.rung.Tuned, chosen.rung.LOO
+	for i, pt := range pr.pts {
+		res.Residuals = append(res.Residuals, Residual{Quantity: pt.Quantity, Unit: pt.Unit, Pressure: pt.Pressure,
+			Lab: pt.Lab, Published: pubVals[i], Tuned: chosen.vals[i], Excluded: !pr.use[i], Source: pt.Source, Line: pt.Line})
+	}
+	pr.lay = chosen.lay
+	half, assumed := pr.interval(chosen.q)
+	res.CIAssumed = assumed
+	if half != nil {
+		res.CI95 = map[string][2]float64{}
+		for j, name := range chosen.lay.names(res.CoefficientIDs) {
+			v := paramValue(chosen.q, name, res.CoefficientIDs)
+			res.CI95[name] = [2]float64{v - half[j], v + half[j]}
+		}
+	}
+	res.ShiftUnit, res.Shifted = shiftUnit(prop, pr.pts), chosen.lay.shift || chosen.q.Shift != 0
+	res.Flags = append(append([]string(nil), pr.notes...), chosen.rung.Flags...)
+	if chosen.rung.Depth != DepthPublished {
+		res.NoFit = noFitRemark(prop, family, pr.pts, pr.free, chosen.vals)
+	}
 	if e, err := correlations.Lookup(catalogProperty(prop), family); err == nil {
 		res.OutOfRange = e.Check(ds.rangeInputs())
 	}
 	return res, nil
 }
 
-// multiplierFlags warns of a multiplier far from 1 or at its bound.
-func multiplierFlags(q Params) []string {
-	var fl []string
-	switch {
-	case q.Multiplier <= MinMultiplier*1.001 || q.Multiplier >= MaxMultiplier*0.999:
-		fl = append(fl, fmt.Sprintf("multiplier %.3f is at its bound [%g, %g]: this family cannot describe the oil", q.Multiplier, MinMultiplier, MaxMultiplier))
-	case q.Multiplier < FlagLowMult || q.Multiplier > FlagHighMult:
-		fl = append(fl, fmt.Sprintf("multiplier %.3f is outside [%g, %g]: the family describes this oil poorly", q.Multiplier, FlagLowMult, FlagHighMult))
+// paramValue returns the natural value of a named parameter.
+func paramValue(q Params, name string, ids []string) float64 {
+	switch name {
+	case "multiplier":
+		return q.Multiplier
+	case "shift":
+		return q.Shift
+	case "bend":
+		return q.bend()
 	}
-	return fl
+	for j, id := range ids {
+		if id == name && q.Coefficients != nil {
+			return q.Coefficients[j]
+		}
+	}
+	return math.NaN()
+}
+
+// ladder fits every rung, computes its leave-one-out error, and returns the chosen (or forced)
+// one; the rungs go to res.Ladder.
+func (pr *problem) ladder(res *Result, force Depth) (*rungFit, error) {
+	fits := make([]*rungFit, len(Depths))
+	nFree := pr.freePoints()
+	var prev []float64 // start of the next rung: the shallower rung's optimum, extended
+	var prevLay layout
+	beyond := false // past a forced depth: deeper rungs are not fitted
+	for i, d := range Depths {
+		r := Rung{Depth: d}
+		if beyond {
+			r.Skipped = fmt.Sprintf("not fitted: depth %s was asked for", force)
+			res.Ladder = append(res.Ladder, r)
+			continue
+		}
+		beyond = d == force
+		l, skip := pr.layoutFor(d)
+		if skip == "" && l.size() > nFree {
+			skip = fmt.Sprintf("%s for %s", plural(nFree, "free point"), plural(l.size(), "parameter"))
+		}
+		if skip != "" {
+			r.Skipped = skip
+			res.Ladder = append(res.Ladder, r)
+			continue
+		}
+		rf, err := pr.fitRung(d, l, extendStart(pr, prevLay, prev, l))
+		if err != nil {
+			if d == DepthPublished {
+				return nil, err
+			}
+			r.Skipped = "the fit failed: " + err.Error()
+			res.Ladder = append(res.Ladder, r)
+			continue
+		}
+		pr.leaveOneOut(&rf)
+		res.Evals += rf.evals
+		fits[i] = &rf
+		prev, prevLay = rf.x, l
+		res.Ladder = append(res.Ladder, rf.rung)
+	}
+	pick := chooseRung(pr.prop, fits)
+	if force != "" {
+		want := -1
+		for i, d := range Depths {
+			if d == force {
+				want = i
+			}
+		}
+		if want < 0 {
+			return nil, fmt.Errorf("fit: unknown depth %q (want one of %v)", force, Depths)
+		}
+		pick = -1
+		for i := want; i >= 0; i-- {
+			if fits[i] != nil {
+				pick = i
+				break
+			}
+		}
+		if pick != want {
+			pr.notes = append(pr.notes, fmt.Sprintf("%s depth %s was asked for but is skipped (%s): %s used", pr.prop, force, res.Ladder[want].Skipped, Depths[pick]))
+		}
+	}
+	if pick < 0 {
+		return nil, fmt.Errorf("fit: %s: no rung could be fitted", pr.prop)
+	}
+	res.Ladder[pick].Chosen = true
+	fits[pick].rung.Chosen = true
+	return fits[pick], nil
+}
+
+// extendStart maps the optimum of a shallower rung to start coordinates of a deeper one: the
+// parameters they share keep their values, the new ones start at the published correlation.
+func extendStart(pr *problem, from layout, x []float64, to layout) []float64 {
+	if x == nil {
+		return nil
+	}
+	pr.lay = from
+	q, err := pr.params(x)
+	if err != nil {
+		return nil
+	}
+	q = q.clone()
+	q.Coefficients = nil
+	if !to.exp {
+		q.Bend = 0
+	}
+	pr.lay = to
+	return pr.coords(q)
+}
+
+// evaluateFixed evaluates recorded parameters (a tuning file) as the rung they belong to.
+func (pr *problem) evaluateFixed(q Params, d Depth) (*rungFit, error) {
+	l := layout{mult: pr.prop != Pb, shift: q.Shift != 0, exp: q.Bend != 0}
+	if q.Coefficients != nil {
+		if len(q.Coefficients) != len(pr.coef0) {
+			return nil, fmt.Errorf("fit: %s: %d coefficients recorded, the family declares %d", pr.prop, len(q.Coefficients), len(pr.coef0))
+		}
+		for j := range pr.coef0 {
+			if q.Coefficients[j] != pr.coef0[j] {
+				l.coef = append(l.coef, j)
+			}
+		}
+	}
+	pr.anchored = false // recorded parameters are applied as they are
+	pr.lay = l
+	rf := &rungFit{rung: Rung{Depth: d, Free: l.size(), Params: q.clone(), Chosen: true}, lay: l, q: q.clone(), vals: make([]float64, len(pr.pts))}
+	var err error
+	if rf.rung.Tuned, err = pr.stats(rf.q, rf.vals); err != nil {
+		return nil, err
+	}
+	rf.rung.Flags = multiplierFlags(pr.prop, rf.q, l)
+	return rf, nil
+}
+
+// plural writes "1 point", "5 points".
+func plural(n int, word string) string {
+	if n == 1 {
+		return fmt.Sprintf("%d %s", n, word)
+	}
+	return fmt.Sprintf("%d %ss", n, word)
 }
 
 // Choice names the family chosen for each property; a missing property takes the
@@ -150,19 +279,19 @@ func TuneAll(ds *Dataset, choice Choice, opts Options) (map[PropertyID]Result, e
 }
 
 // Apply evaluates recorded families and parameters (a loaded tuning file) on a dataset
-// without tuning: statistics, residuals and intervals at the recorded parameters.
+// without tuning: statistics, residuals and intervals at the recorded parameters, and the
+// recorded ladder and leave-one-out error (those of the tuning that made them).
 // Properties without lab data are absent from the result; recorded properties that the
 // dataset has data for but stored lacks are tuned afresh.
 func Apply(ds *Dataset, stored map[PropertyID]Result, opts Options) (map[PropertyID]Result, error) {
 	choice := Choice{}
-	params := map[PropertyID]Params{}
 	for p, r := range stored {
-		choice[p], params[p] = r.Family, r.Params
+		choice[p] = r.Family
 	}
-	return runAll(ds, choice, params, opts)
+	return runAll(ds, choice, stored, opts)
 }
 
-func runAll(ds *Dataset, choice Choice, fixed map[PropertyID]Params, opts Options) (map[PropertyID]Result, error) {
+func runAll(ds *Dataset, choice Choice, fixed map[PropertyID]Result, opts Options) (map[PropertyID]Result, error) {
 	out := map[PropertyID]Result{}
 	var rk Ranking
 	for _, p := range Properties {
@@ -192,12 +321,22 @@ func runAll(ds *Dataset, choice Choice, fixed map[PropertyID]Params, opts Option
 			sat = &r
 		}
 		var fx *Params
-		if q, ok := fixed[p]; ok {
-			fx = &q
+		var fd Depth
+		if st, ok := fixed[p]; ok {
+			q := st.Params.clone()
+			fx, fd = &q, st.Depth
 		}
-		r, err := tuneWith(ds, p, fam, opts, dead, sat, fx)
+		r, err := tuneWith(ds, p, fam, opts, dead, sat, fx, fd)
 		if err != nil {
 			return out, err
+		}
+		if st, ok := fixed[p]; ok && st.Ladder != nil {
+			// The ladder and leave-one-out error as recorded when the parameters were tuned.
+			r.Ladder, r.LOO = st.Ladder, st.LOO
+		}
+		if r.NoFit != "" && choice[p] == "" {
+			// The family is the best-ranked one: none follows the lab points.
+			r.NoFit = "no family follows" + strings.TrimPrefix(r.NoFit, r.Family+" does not follow") + " (best: " + r.Family + " at depth " + string(r.Depth) + ")"
 		}
 		out[p] = r
 	}
@@ -211,7 +350,7 @@ type RankEntry struct {
 	AAREPublished *float64 `json:"aare_pct_published"`
 	AARETuned     *float64 `json:"aare_pct_tuned"`
 	Multiplier    *float64 `json:"multiplier"`
-	Shift         *float64 `json:"shift,omitempty"` // multiplier+shift mode only
+	Shift         *float64 `json:"shift,omitempty"` // when the chosen rung tunes a shift
 	Depth         Depth    `json:"depth"`           // the rung chosen (or forced) for this family
 	AARELOO       *float64 `json:"aare_pct_loo"`    // leave-one-out AARE of that rung, %
 	InRange       bool     `json:"in_range"`
@@ -296,10 +435,14 @@ func rankLess(a, b RankEntry) bool {
 		return a.Failed == ""
 	}
 	if a.Failed == "" {
-		// Tuned errors are compared in steps of aareTie, so that families that all fit
-		// exactly (as many points as parameters) tie, and round-off cannot pick the winner.
-		ta, tb := math.Round(*a.AARETuned/aareTie), math.Round(*b.AARETuned/aareTie)
+		// Errors are compared in steps of aareTie, so that families that all fit exactly (as
+		// many points as parameters) tie, and round-off cannot pick the winner. The key is the
+		// leave-one-out error of the chosen rung, or its training error where there is none.
+		ta, tb := math.Round(rankKey(a)/aareTie), math.Round(rankKey(b)/aareTie)
 		if ta != tb {
+			return ta < tb
+		}
+		if ta, tb := math.Round(*a.AARETuned/aareTie), math.Round(*b.AARETuned/aareTie); ta != tb {
 			return ta < tb
 		}
 		if *a.AAREPublished != *b.AAREPublished {
@@ -307,6 +450,14 @@ func rankLess(a, b RankEntry) bool {
 		}
 	}
 	return a.Family < b.Family
+}
+
+// rankKey is the error a family is ranked by.
+func rankKey(e RankEntry) float64 {
+	if e.AARELOO != nil {
+		return *e.AARELOO
+	}
+	return *e.AARETuned
 }
 
 func score(ds *Dataset, p PropertyID, family string, opts Options) RankEntry {
@@ -323,7 +474,8 @@ func score(ds *Dataset, p PropertyID, family string, opts Options) RankEntry {
 	e.OutOfRange, e.InRange = r.OutOfRange, len(r.OutOfRange) == 0
 	e.Points = r.Tuned.Points
 	e.AAREPublished, e.AARETuned, e.Multiplier = &r.Published.AARE, &r.Tuned.AARE, &r.Params.Multiplier
-	if r.Mode == MultiplierShift {
+	e.Depth, e.AARELOO = r.Depth, r.LOO
+	if r.Shifted {
 		e.Shift = &r.Params.Shift
 	}
 	e.Flags = r.Flags

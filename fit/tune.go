@@ -5,23 +5,40 @@ import (
 	"fmt"
 	"math"
 
+	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/stat/distuv"
 )
 
 // Multiplier bounds of the smooth transform m = 2^tanh(θ) (DESIGN.md §5), and the range
-// outside which a multiplier is flagged as far from the published correlation.
+// outside which a multiplier is flagged as far from the published correlation. The pb bend
+// uses the same transform and bounds; a refitted coefficient c = c₀·4^tanh(u) stays within a
+// quarter and four times its published value (MinCoefficientRatio, MaxCoefficientRatio), the
+// ridge holding it near c₀.
 const (
-	MinMultiplier  = 0.5
-	MaxMultiplier  = 2.0
+	MinMultiplier = 0.5
+	MaxMultiplier = 2.0
+
+	MinCoefficientRatio = 0.25
+	MaxCoefficientRatio = 4.0
+
 	FlagLowMult    = 0.8
 	FlagHighMult   = 1.25
 	penalty        = 1e30 // objective value where the correlation cannot be evaluated
 	fdStep         = 1e-6 // relative step of the finite-difference Jacobian
-	nmMaxEvals     = 2000
+	nmMaxEvals     = 4000
 	nmFuncTol      = 1e-12
 	nmConvergeIter = 8 // major iterations without a better vertex; 5 stopped 1-D contractions at 1e-4
 )
+
+// RidgeStrength is λ of the refit depth's penalty λ·Σ(c/c₀ − 1)² on the relative change of
+// each refitted coefficient from its published value, added to the sum of squared weighted
+// residuals (relative errors; for Rs relative to Rsb). It is chosen by TestRidgeStrengthChoice
+// as the weakest pull on the 1–2–5 grid that keeps a refit to three noisy (0.3 %) points within
+// 3 % of the published coefficients; a weaker pull lets three points drag the coefficients by
+// 5 % and more, a stronger one biases well-determined refits (eight points still recover a
+// changed coefficient within 2 %).
+const RidgeStrength = 2e-4
 
 // assumedRelSigma is the relative measurement uncertainty used for a parameter interval when a
 // property has no more points than parameters (no residual degrees of freedom). Typical lab
@@ -51,11 +68,11 @@ type Residual struct {
 type Result struct {
 	Property   PropertyID
 	Family     string
-	Mode       Mode
 	Params     Params
-	Shifted    bool                  // a shift was tuned (free, or fixed by Pb for pb); false: multiplier only
+	Shifted    bool                  // Params.Shift is a tuned parameter
 	ShiftUnit  string                // unit of Params.Shift (the property's, psia for pb)
-	CI95       map[string][2]float64 // per parameter name ("multiplier", "shift"); nil when not determined
+	Anchored   bool                  // pb: the pressure scale is fixed by the report's Pb
+	CI95       map[string][2]float64 // per parameter name ("multiplier", "shift", "exponent", coefficient ids); nil when not determined
 	CIAssumed  bool                  // the interval rests on an assumed lab uncertainty (no degrees of freedom)
 	Published  Stats
 	Tuned      Stats
@@ -69,43 +86,95 @@ type Result struct {
 	Ladder []Rung   // every rung with its training and leave-one-out errors, shallowest first
 	LOO    *float64 // leave-one-out AARE (%) of the chosen rung; nil when not available
 	NoFit  string   // set when even the chosen rung leaves a large error: the remark in words
+	// CoefficientIDs name the entries of Params.Coefficients (the family's declaration).
+	CoefficientIDs []string
+}
+
+// layout says which parameters a rung frees, in the order of the optimiser's coordinates.
+type layout struct {
+	anchor bool  // pb: the pressure scale is fixed by the report's Pb
+	mult   bool  // a free multiplier (pb without an anchor: a free pressure scale)
+	shift  bool  // a free shift
+	exp    bool  // the pb bend
+	coef   []int // indexes of the freed coefficients in the family's declaration
+}
+
+func (l layout) size() int {
+	n := len(l.coef)
+	for _, b := range []bool{l.mult, l.shift, l.exp} {
+		if b {
+			n++
+		}
+	}
+	return n
+}
+
+// names are the parameter names of the layout, as in Result.CI95.
+func (l layout) names(ids []string) []string {
+	var ns []string
+	if l.mult {
+		ns = append(ns, "multiplier")
+	}
+	if l.shift {
+		ns = append(ns, "shift")
+	}
+	if l.exp {
+		ns = append(ns, "bend")
+	}
+	for _, j := range l.coef {
+		ns = append(ns, ids[j])
+	}
+	return ns
 }
 
 // problem is one property, one family, its points and the scratch space of the objective.
 type problem struct {
 	prop     PropertyID
 	nl       nonlinear // nil for affine models
+	af       affine    // nil for nonlinear models
 	pts      []Point
 	use      []bool
 	w        []float64
+	scale    []float64 // denominator of each point's residual
 	loss     Loss
 	delta    float64
-	shift    bool // the shift is a free parameter
 	shiftMax float64
+	lambda   float64 // ridge strength of the refit depth
 	pred     []float64
 	notes    []string // what newProblem changed, for the result's flags
 
-	// anchored (pb in multiplier+shift mode): the shift is fixed by Pb_tuned(Rsb) = Pb,
-	// s = pbLab − m·pbPub, so the tuned pair honours the report's bubble point exactly.
-	anchored     bool
-	pbLab, pbPub float64
+	// coefficients: the published values of the family's declaration (nil: none declared).
+	coef0 []float64
+	lay   layout
+	cbuf  []float64 // scratch coefficients of params
 
-	// For affine models: prediction = a + m·b + s, a and b evaluated once.
-	isAffine bool
-	a, b     []float64
-	basisErr error
+	// anchored (pb): the pressure scale is fixed by Pb_tuned(Rsb) = Pb: m = (Pb − s)/Pb_c(Rsb).
+	anchored bool
+	anchorAt int // index of the Pb point
+	pbLab    float64
+
+	// For affine models: prediction = a + m·b + s, a and b evaluated once for published
+	// coefficients (a0, b0) and per evaluation into a, b for a refit.
+	a0, b0, a, b []float64
+	basisErr     error
 }
 
 // predict fills out with the predictions at natural parameters q.
 func (pr *problem) predict(q Params, out []float64) error {
-	if !pr.isAffine {
+	if pr.nl != nil {
 		return pr.nl.predict(q, pr.pts, out)
 	}
-	if pr.basisErr != nil {
+	a, b := pr.a0, pr.b0
+	if q.Coefficients != nil {
+		if err := pr.af.basis(q.Coefficients, pr.pts, pr.a, pr.b); err != nil {
+			return err
+		}
+		a, b = pr.a, pr.b
+	} else if pr.basisErr != nil {
 		return pr.basisErr
 	}
 	for i := range out {
-		out[i] = pr.a[i] + q.Multiplier*pr.b[i] + q.Shift
+		out[i] = a[i] + q.Multiplier*b[i] + q.Shift
 	}
 	return nil
 }
@@ -115,24 +184,16 @@ func newProblem(ds *Dataset, prop PropertyID, m model, opts Options) (*problem, 
 	if len(pts) == 0 {
 		return nil, ErrNoData
 	}
-	pr := &problem{prop: prop, pts: pts, use: make([]bool, len(pts)), w: make([]float64, len(pts)),
-		loss: opts.loss(), delta: opts.huberDelta(), shift: opts.mode() == MultiplierShift, pred: make([]float64, len(pts))}
+	n := len(pts)
+	pr := &problem{prop: prop, pts: pts, use: make([]bool, n), w: make([]float64, n), scale: make([]float64, n),
+		loss: opts.loss(), delta: opts.huberDelta(), lambda: opts.ridge(), pred: make([]float64, n), anchorAt: -1}
 	for i := range pr.use {
 		pr.use[i] = true
 		pr.w[i] = 1
 	}
-	if prop == Pb && len(pts) > 1 {
-		// The report's Pb weighs as much as all Rs points together, so that the tuned pair
-		// honours the measured bubble point closely.
-		for i, pt := range pts {
-			if pt.Quantity == "Pb" {
-				pr.w[i] = float64(len(pts) - 1)
-			}
-		}
-	}
 	if ws, ok := opts.Weights[prop]; ok {
-		if len(ws) != len(pts) {
-			return nil, fmt.Errorf("fit: %s: %d weights for %d points", prop, len(ws), len(pts))
+		if len(ws) != n {
+			return nil, fmt.Errorf("fit: %s: %d weights for %d points", prop, len(ws), n)
 		}
 		for i, w := range ws {
 			if !(w >= 0) || math.IsInf(w, 0) {
@@ -142,112 +203,163 @@ func newProblem(ds *Dataset, prop PropertyID, m model, opts Options) (*problem, 
 		}
 	}
 	for _, i := range opts.Excluded[prop] {
-		if i < 0 || i >= len(pts) {
-			return nil, fmt.Errorf("fit: %s: excluded point %d does not exist (%d points)", prop, i, len(pts))
+		if i < 0 || i >= n {
+			return nil, fmt.Errorf("fit: %s: excluded point %d does not exist (%d points)", prop, i, n)
 		}
 		pr.use[i] = false
 	}
 	switch m := m.(type) {
 	case affine:
-		pr.isAffine = true
-		pr.a, pr.b = make([]float64, len(pts)), make([]float64, len(pts))
-		pr.basisErr = m.basis(pts, pr.a, pr.b)
+		pr.af = m
+		pr.a0, pr.b0, pr.a, pr.b = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
+		pr.basisErr = m.basis(nil, pts, pr.a0, pr.b0)
 	case nonlinear:
 		pr.nl = m
 	default:
 		return nil, fmt.Errorf("fit: %s: model %T is neither affine nor nonlinear", prop, m)
 	}
-	n := 0
-	mean := 0.0
+	if cs := m.coefficients(); len(cs) > 0 {
+		pr.coef0 = make([]float64, len(cs))
+		for j, c := range cs {
+			pr.coef0[j] = c.Value
+		}
+	}
+	used, mean := 0, 0.0
 	for i, u := range pr.use {
 		if u && pr.w[i] > 0 {
-			n++
+			used++
 			mean += math.Abs(pts[i].Lab)
 		}
 	}
-	if n == 0 {
+	if used == 0 {
 		return nil, fmt.Errorf("fit: %s: every point is excluded", prop)
 	}
-	pr.shiftMax = 0.25 * mean / float64(n)
-	if pr.shift {
+	mean /= float64(used)
+	pr.shiftMax = 0.25 * mean
+	// Residual scales (DESIGN.md §5 and DEVELOPERS.md): relative errors by default; for the Rs
+	// points of pb relative to Rsb, because the adjusted Rs at low pressure is a small
+	// difference of large numbers whose uncertainty is a fraction of Rsb, not of itself; with
+	// the absolute loss, errors in the property's unit divided by the mean lab value, which
+	// gives the same optimum as plain absolute errors and keeps the ridge on the same scale.
+	for i, pt := range pts {
 		switch {
-		case prop == Pb:
-			pr.shift = false
-			if err := pr.anchor(); err != nil {
-				return nil, err
-			}
-		case prop == MuUnder:
-			pr.shift = false
-			pr.notes = append(pr.notes, "no shift for mu_under: it would break the viscosity's continuity at Pb")
-		case n <= 2:
-			pr.shift = false
-			pr.notes = append(pr.notes, fmt.Sprintf("no shift: %d point(s) cannot determine two parameters", n))
+		case pr.loss == Absolute:
+			pr.scale[i] = mean
+		case prop == Pb && pt.Quantity == "Rs":
+			pr.scale[i] = ds.Rsb
+		default:
+			pr.scale[i] = pt.Lab
 		}
+		if prop == Pb && pt.Quantity == "Pb" && pr.use[i] {
+			pr.anchored, pr.anchorAt, pr.pbLab = true, i, pt.Lab
+		}
+	}
+	if prop == Pb && !pr.anchored {
+		pr.notes = append(pr.notes, "the report's Pb is excluded, so nothing anchors the pair: its pressure scale is fitted to the Rs points")
 	}
 	return pr, nil
 }
 
-// anchor fixes the pb shift by the report's bubble point (see problem.anchored).
-func (pr *problem) anchor() error {
-	pm, ok := pr.nl.(pbModel)
-	if !ok {
-		return fmt.Errorf("fit: pb: unexpected model %T", pr.nl)
-	}
-	for i, pt := range pr.pts {
-		if pt.Quantity != "Pb" || !pr.use[i] {
-			continue
-		}
-		v, err := pm.f.BubblePoint(pt.Rs, pm.oil)
-		if err != nil {
-			return fmt.Errorf("fit: pb: the published correlation cannot be evaluated: %w", err)
-		}
-		pr.anchored, pr.pbLab, pr.pbPub = true, pt.Lab, v
-		return nil
-	}
-	pr.notes = append(pr.notes, "no shift: the report's Pb is excluded, so nothing anchors it")
-	return nil
+// free reports whether point i takes part in the fit as a free point (the pb anchor does not:
+// it is honoured exactly).
+func (pr *problem) free(i int) bool {
+	return pr.use[i] && pr.w[i] > 0 && !(pr.anchored && i == pr.anchorAt)
 }
 
-// params maps optimiser coordinates to bounded natural parameters.
-func (pr *problem) params(x []float64) Params {
-	q := Params{Multiplier: math.Pow(2, math.Tanh(x[0]))}
-	switch {
-	case pr.anchored:
-		q.Shift = pr.pbLab - q.Multiplier*pr.pbPub
-	case pr.shift && len(x) > 1:
-		q.Shift = pr.shiftMax * math.Tanh(x[1])
+func (pr *problem) freePoints() int {
+	n := 0
+	for i := range pr.pts {
+		if pr.free(i) {
+			n++
+		}
 	}
-	return q
+	return n
 }
 
-// coords is the inverse of params, for a start or a reported optimum.
+// params maps optimiser coordinates to bounded natural parameters under the current layout.
+// The coefficient slice of the result is scratch space: clone it to keep it.
+func (pr *problem) params(x []float64) (Params, error) {
+	q := Params{Multiplier: 1}
+	k := 0
+	next := func() float64 { v := x[k]; k++; return v }
+	if pr.lay.mult {
+		q.Multiplier = math.Pow(2, math.Tanh(next()))
+	}
+	if pr.lay.shift {
+		q.Shift = pr.shiftMax * math.Tanh(next())
+	}
+	if pr.lay.exp {
+		q.Bend = math.Pow(2, math.Tanh(next()))
+	}
+	if len(pr.lay.coef) > 0 {
+		if pr.cbuf == nil {
+			pr.cbuf = make([]float64, len(pr.coef0))
+		}
+		copy(pr.cbuf, pr.coef0)
+		for _, j := range pr.lay.coef {
+			pr.cbuf[j] = pr.coef0[j] * math.Pow(4, math.Tanh(next()))
+		}
+		q.Coefficients = pr.cbuf
+	}
+	if pr.lay.anchor && !pr.reanchor(&q) {
+		return q, fmt.Errorf("fit: pb: the pair cannot be evaluated at Rsb")
+	}
+	return q, nil
+}
+
+// coords is the inverse of params for the free parameters of q.
 func (pr *problem) coords(q Params) []float64 {
-	x := []float64{math.Atanh(clamp(math.Log2(q.Multiplier), -0.999999, 0.999999))}
-	if pr.shift {
+	inv := func(ratio float64) float64 { return math.Atanh(clamp(math.Log2(ratio), -0.999999, 0.999999)) }
+	var x []float64
+	if pr.lay.mult {
+		x = append(x, inv(q.Multiplier))
+	}
+	if pr.lay.shift {
 		x = append(x, math.Atanh(clamp(q.Shift/pr.shiftMax, -0.999999, 0.999999)))
+	}
+	if pr.lay.exp {
+		x = append(x, inv(q.bend()))
+	}
+	for _, j := range pr.lay.coef {
+		r := 1.0
+		if q.Coefficients != nil {
+			r = q.Coefficients[j] / pr.coef0[j]
+		}
+		x = append(x, math.Atanh(clamp(math.Log(r)/math.Log(4), -0.999999, 0.999999)))
 	}
 	return x
 }
 
 func clamp(v, lo, hi float64) float64 { return math.Max(lo, math.Min(hi, v)) }
 
-// residual returns the weighed residual of point i for prediction v: relative by default.
+// residual returns the weighed residual of point i for prediction v (see the scales in
+// newProblem).
 func (pr *problem) residual(i int, v float64) float64 {
-	lab := pr.pts[i].Lab
-	if pr.loss == Absolute {
-		return v - lab
-	}
-	return (v - lab) / lab
+	return (v - pr.pts[i].Lab) / pr.scale[i]
 }
 
-// objective is the weighted loss at natural parameters q; penalty when the family fails.
+// ridge is the refit penalty at parameters q.
+func (pr *problem) ridge(q Params) float64 {
+	if q.Coefficients == nil {
+		return 0
+	}
+	s := 0.0
+	for _, j := range pr.lay.coef {
+		d := q.Coefficients[j]/pr.coef0[j] - 1
+		s += d * d
+	}
+	return pr.lambda * s
+}
+
+// objective is the weighted loss over the free points plus the ridge at natural parameters q;
+// penalty when the family fails.
 func (pr *problem) objective(q Params) float64 {
 	if err := pr.predict(q, pr.pred); err != nil {
 		return penalty
 	}
 	s := 0.0
 	for i, v := range pr.pred {
-		if !pr.use[i] {
+		if !pr.free(i) {
 			continue
 		}
 		r := pr.residual(i, v)
@@ -257,13 +369,15 @@ func (pr *problem) objective(q Params) float64 {
 			s += pr.w[i] * r * r
 		}
 	}
+	s += pr.ridge(q)
 	if math.IsNaN(s) || math.IsInf(s, 0) {
 		return penalty
 	}
 	return s
 }
 
-// stats evaluates error statistics of the used points at parameters q into out.
+// stats evaluates error statistics of the used points at parameters q; vals receives the
+// predictions at every point.
 func (pr *problem) stats(q Params, vals []float64) (Stats, error) {
 	if err := pr.predict(q, vals); err != nil {
 		return Stats{}, err
@@ -319,39 +433,96 @@ func shiftUnit(prop PropertyID, pts []Point) string {
 	return rmseUnit(prop, pts)
 }
 
-// minimize runs Nelder–Mead from the published parameters and returns the optimum.
-func (pr *problem) minimize() (Params, int, error) {
-	x0 := pr.coords(Published)
-	p := optimize.Problem{Func: func(x []float64) float64 { return pr.objective(pr.params(x)) }}
-	if p.Func(x0) >= penalty {
-		return Params{}, 1, fmt.Errorf("fit: %s: the published correlation cannot be evaluated for this oil", pr.prop)
+// minimize runs Nelder–Mead on the current layout from x0 with an initial simplex of the given
+// size and returns the optimum's coordinates. A layout with no free parameter returns x0.
+func (pr *problem) minimize(x0 []float64, simplex float64) ([]float64, int, error) {
+	f := func(x []float64) float64 {
+		q, err := pr.params(x)
+		if err != nil {
+			return penalty
+		}
+		return pr.objective(q)
+	}
+	if f(x0) >= penalty {
+		return nil, 1, fmt.Errorf("fit: %s: the correlation cannot be evaluated for this oil at the start", pr.prop)
+	}
+	if len(x0) == 0 {
+		return x0, 1, nil
+	}
+	if x, ok := pr.linear(); ok {
+		return x, 1, nil
 	}
 	settings := &optimize.Settings{
 		FuncEvaluations: nmMaxEvals,
 		Converger:       &optimize.FunctionConverge{Absolute: nmFuncTol, Relative: nmFuncTol, Iterations: nmConvergeIter},
 	}
-	res, err := optimize.Minimize(p, x0, settings, &optimize.NelderMead{SimplexSize: 0.1})
+	res, err := optimize.Minimize(optimize.Problem{Func: f}, x0, settings, &optimize.NelderMead{SimplexSize: simplex})
 	if err != nil {
-		return Params{}, 0, fmt.Errorf("fit: %s: Nelder–Mead: %w", pr.prop, err)
+		return nil, 0, fmt.Errorf("fit: %s: Nelder–Mead: %w", pr.prop, err)
 	}
-	if serr := res.Status.Err(); serr != nil {
-		return Params{}, res.FuncEvaluations, fmt.Errorf("fit: %s: Nelder–Mead ended with %v: %w", pr.prop, res.Status, serr)
+	if serr := res.Status.Err(); serr != nil && res.Status != optimize.FunctionEvaluationLimit {
+		return nil, res.FuncEvaluations, fmt.Errorf("fit: %s: Nelder–Mead ended with %v: %w", pr.prop, res.Status, serr)
 	}
-	return pr.params(res.X), res.FuncEvaluations, nil
+	return res.X, res.FuncEvaluations, nil
 }
 
-// interval returns the 95 % half-widths of the natural parameters. The covariance is the
-// Gauss–Newton one, σ²(JᵀJ)⁻¹, J the Jacobian of the residuals by central differences; with
-// unequal weights W it is the sandwich (JᵀWJ)⁻¹ JᵀW²J (JᵀWJ)⁻¹ σ², since the weights express
-// importance, not a known measurement variance. σ² comes from the unweighted residuals.
+// linear solves a multiplier (and shift) of an affine model with published coefficients and a
+// quadratic loss in closed form: the objective is then a weighted linear least-squares problem
+// in (m, s), and when its optimum lies inside the bounds it is also the optimum of the bounded
+// problem that Nelder–Mead would approach. ok is false when the closed form does not apply or
+// its optimum is outside the bounds (Nelder–Mead then runs on the transformed parameters).
+func (pr *problem) linear() ([]float64, bool) {
+	l := pr.lay
+	if pr.af == nil || pr.loss == Huber || pr.basisErr != nil || !l.mult || l.exp || len(l.coef) > 0 || l.anchor {
+		return nil, false
+	}
+	var sbb, sb, s1, sby, sy float64
+	for i := range pr.pts {
+		if !pr.free(i) {
+			continue
+		}
+		u := pr.w[i] / (pr.scale[i] * pr.scale[i])
+		b, y := pr.b0[i], pr.pts[i].Lab-pr.a0[i]
+		sbb += u * b * b
+		sb += u * b
+		s1 += u
+		sby += u * b * y
+		sy += u * y
+	}
+	q := Params{}
+	if l.shift {
+		det := sbb*s1 - sb*sb
+		if !(math.Abs(det) > 1e-12*sbb*s1) {
+			return nil, false
+		}
+		q.Multiplier = (sby*s1 - sb*sy) / det
+		q.Shift = (sbb*sy - sb*sby) / det
+	} else {
+		if !(sbb > 0) {
+			return nil, false
+		}
+		q.Multiplier = sby / sbb
+	}
+	const inside = 0.999 // the transform cannot reach its bounds exactly
+	if !(q.Multiplier > MinMultiplier/inside && q.Multiplier < MaxMultiplier*inside) || math.Abs(q.Shift) >= inside*pr.shiftMax {
+		return nil, false
+	}
+	return pr.coords(q), true
+}
+
+// interval returns the 95 % half-widths of the free natural parameters at q (layout order).
+// The covariance is the Gauss–Newton one, σ²(JᵀWJ + R)⁻¹ JᵀW²J (JᵀWJ + R)⁻¹, J the Jacobian of
+// the residuals by central differences, W the weights (which express importance, not a known
+// variance, hence the sandwich) and R the curvature of the ridge. σ² comes from the
+// unweighted residuals; with no degrees of freedom from the assumed lab uncertainty.
 func (pr *problem) interval(q Params) (half []float64, assumed bool) {
-	k := 1
-	if pr.shift {
-		k = 2
+	k := pr.lay.size()
+	if k == 0 {
+		return nil, false
 	}
 	var used []int
-	for i, u := range pr.use {
-		if u && pr.w[i] > 0 {
+	for i := range pr.pts {
+		if pr.free(i) {
 			used = append(used, i)
 		}
 	}
@@ -365,52 +536,74 @@ func (pr *problem) interval(q Params) (half []float64, assumed bool) {
 		r := pr.residual(i, res[i])
 		rss += r * r
 	}
-	jac := make([][]float64, k)
+	// Natural parameters in layout order, their steps, and the ridge curvature.
+	type par struct {
+		get func(*Params) *float64
+		c0  float64 // published value of a coefficient; 0 for the others
+	}
+	var ps []par
+	if pr.lay.mult {
+		ps = append(ps, par{get: func(p *Params) *float64 { return &p.Multiplier }})
+	}
+	if pr.lay.shift {
+		ps = append(ps, par{get: func(p *Params) *float64 { return &p.Shift }})
+	}
+	if pr.lay.exp {
+		ps = append(ps, par{get: func(p *Params) *float64 { return &p.Bend }})
+	}
+	for _, j := range pr.lay.coef {
+		ps = append(ps, par{get: func(p *Params) *float64 { return &p.Coefficients[j] }, c0: pr.coef0[j]})
+	}
+	jac := mat.NewDense(n, k, nil)
 	up, dn := make([]float64, len(pr.pts)), make([]float64, len(pr.pts))
-	for j := 0; j < k; j++ {
-		qu, qd := q, q
-		var h float64
-		if j == 0 {
-			h = fdStep * q.Multiplier
-			qu.Multiplier += h
-			qd.Multiplier -= h
-		} else {
-			h = fdStep * math.Max(1e-3*pr.shiftMax, math.Abs(q.Shift))
-			qu.Shift += h
-			qd.Shift -= h
+	base := q.clone()
+	if base.Bend == 0 && pr.lay.exp {
+		base.Bend = 1
+	}
+	for j, p := range ps {
+		qu, qd := base.clone(), base.clone()
+		v := *p.get(&base)
+		h := fdStep * math.Max(math.Abs(v), 1e-3*pr.shiftMax)
+		if p.c0 == 0 && v == 0 {
+			h = fdStep * pr.shiftMax
+		}
+		*p.get(&qu) = v + h
+		*p.get(&qd) = v - h
+		if pr.lay.anchor { // the scale follows the anchor as the other parameters move
+			if !pr.reanchor(&qu) || !pr.reanchor(&qd) {
+				return nil, false
+			}
 		}
 		if pr.predict(qu, up) != nil || pr.predict(qd, dn) != nil {
 			return nil, false
 		}
-		jac[j] = make([]float64, n)
 		for a, i := range used {
-			jac[j][a] = (pr.residual(i, up[i]) - pr.residual(i, dn[i])) / (2 * h)
+			jac.Set(a, j, (pr.residual(i, up[i])-pr.residual(i, dn[i]))/(2*h))
 		}
 	}
-	// A = JᵀWJ and B = JᵀW²J, k×k with k ≤ 2.
-	var a, b [2][2]float64
+	var a, b mat.Dense
+	wj := mat.NewDense(n, k, nil)
+	w2j := mat.NewDense(n, k, nil)
 	for r, i := range used {
-		w := pr.w[i]
-		for x := 0; x < k; x++ {
-			for y := 0; y < k; y++ {
-				a[x][y] += w * jac[x][r] * jac[y][r]
-				b[x][y] += w * w * jac[x][r] * jac[y][r]
-			}
+		for j := 0; j < k; j++ {
+			wj.Set(r, j, pr.w[i]*jac.At(r, j))
+			w2j.Set(r, j, pr.w[i]*pr.w[i]*jac.At(r, j))
 		}
 	}
-	var ai [2][2]float64
-	if k == 1 {
-		if a[0][0] == 0 {
-			return nil, false
+	a.Mul(jac.T(), wj)
+	b.Mul(jac.T(), w2j)
+	for j, p := range ps {
+		if p.c0 != 0 {
+			a.Set(j, j, a.At(j, j)+pr.lambda/(p.c0*p.c0))
 		}
-		ai[0][0] = 1 / a[0][0]
-	} else {
-		det := a[0][0]*a[1][1] - a[0][1]*a[1][0]
-		if !(det > 0) {
-			return nil, false
-		}
-		ai = [2][2]float64{{a[1][1] / det, -a[0][1] / det}, {-a[1][0] / det, a[0][0] / det}}
 	}
+	var ai mat.Dense
+	if err := ai.Inverse(&a); err != nil {
+		return nil, false
+	}
+	var cov mat.Dense
+	cov.Mul(&ai, &b)
+	cov.Mul(&cov, &ai)
 	dof := n - k
 	var s2, tq float64
 	if dof > 0 {
@@ -419,29 +612,26 @@ func (pr *problem) interval(q Params) (half []float64, assumed bool) {
 	} else {
 		// No degrees of freedom: the fit is exact; use the assumed lab uncertainty.
 		sig := assumedRelSigma[pr.prop]
-		if pr.loss == Absolute {
-			sig *= meanAbsLab(pr.pts, used)
-		}
 		s2, tq, assumed = sig*sig, 1.959963984540054, true
 	}
 	half = make([]float64, k)
 	for j := range half {
-		// (A⁻¹ B A⁻¹)_jj
-		v := 0.0
-		for x := 0; x < k; x++ {
-			for y := 0; y < k; y++ {
-				v += ai[j][x] * b[x][y] * ai[y][j]
-			}
+		v := cov.At(j, j)
+		if !(v >= 0) || math.IsInf(v, 0) {
+			return nil, false
 		}
 		half[j] = tq * math.Sqrt(s2*v)
 	}
 	return half, assumed
 }
 
-func meanAbsLab(pts []Point, used []int) float64 {
-	s := 0.0
-	for _, i := range used {
-		s += math.Abs(pts[i].Lab)
+// reanchor recomputes the anchored pb scale for changed parameters.
+func (pr *problem) reanchor(q *Params) bool {
+	pm := pr.nl.(pbModel)
+	v, err := pm.publishedPb(pm.rsb, q.Coefficients)
+	if err != nil || !(v > 0) {
+		return false
 	}
-	return s / float64(len(used))
+	q.Multiplier = (pr.pbLab - q.Shift) / v
+	return true
 }

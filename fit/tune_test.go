@@ -3,6 +3,7 @@ package fit
 import (
 	"math"
 	"math/rand/v2"
+	"reflect"
 	"sort"
 	"testing"
 
@@ -104,9 +105,17 @@ func TestTruthRecovery(t *testing.T) {
 			var errs []float64
 			for seed := 0; seed < coverageRuns; seed++ {
 				ds := synthDataset(t, c.prop, c.family, c.mult, uint64(1000*i+seed))
-				r, err := Tune(ds, c.prop, c.family, Options{})
+				// The data were made with a multiplier: tuned at that depth, the engine must give
+				// it back (the default depth choice is tested in ladder_test.go).
+				r, err := Tune(ds, c.prop, c.family, Options{Depth: DepthMultiplier})
 				if err != nil {
 					t.Fatal(err)
+				}
+				if c.prop == Pb { // the scale is fixed by the anchor: no interval, Pb exact
+					covered++
+					if math.Abs(r.Residuals[0].Tuned/ds.Points[Pb][0].Lab-1) > 1e-9 {
+						t.Errorf("seed %d: tuned Pb %g, report %g", seed, r.Residuals[0].Tuned, ds.Points[Pb][0].Lab)
+					}
 				}
 				errs = append(errs, math.Abs(r.Params.Multiplier/c.mult-1))
 				if ci := r.CI95["multiplier"]; ci[0] <= c.mult && c.mult <= ci[1] {
@@ -118,7 +127,7 @@ func TestTruthRecovery(t *testing.T) {
 				if seed == 0 && c.prop != MuDead { // one point: every family fits exactly, so rank says nothing
 					// Tuned Bo families differ in shape by only 0.2–0.5 % (measured), as much as
 					// 0.5 % noise: ranking is checked on data as precise as a lab's Bo (0.1 %).
-					rk := Rank(synthDatasetNoise(t, c.prop, c.family, c.mult, 7, rankNoiseRel), Options{})
+					rk := Rank(synthDatasetNoise(t, c.prop, c.family, c.mult, 7, rankNoiseRel), Options{Depth: DepthMultiplier})
 					if best, _ := rk.Best(c.prop); best != c.family {
 						t.Errorf("ranked first: %s, want %s (%+v)", best, c.family, rk[c.prop])
 					}
@@ -154,7 +163,7 @@ func TestExcludeEqualsRemove(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if ex.Params != rm.Params {
+	if !reflect.DeepEqual(ex.Params, rm.Params) {
 		t.Errorf("excluded %+v, removed %+v", ex.Params, rm.Params)
 	}
 	if ex.Tuned != rm.Tuned {
@@ -185,6 +194,8 @@ func TestRankGuards(t *testing.T) {
 // nanModel returns NaN for every point: the objective must see a penalty, never NaN.
 type nanModel struct{}
 
+func (nanModel) coefficients() []correlations.Coefficient { return nil }
+
 func (nanModel) predict(_ Params, _ []Point, out []float64) error {
 	for i := range out {
 		out[i] = math.NaN()
@@ -201,7 +212,8 @@ func TestNaNNeverReachesTheFit(t *testing.T) {
 	if v := pr.objective(Published); v != penalty {
 		t.Errorf("objective = %g, want the penalty %g", v, penalty)
 	}
-	if _, _, err := pr.minimize(); err == nil {
+	pr.lay = layout{mult: true}
+	if _, _, err := pr.minimize([]float64{0}, 0.1); err == nil {
 		t.Error("minimize on a NaN model: want an error")
 	}
 	if _, err := pr.stats(Published, make([]float64, len(pr.pts))); err == nil {
@@ -211,18 +223,25 @@ func TestNaNNeverReachesTheFit(t *testing.T) {
 
 // The multiplier transform is bounded to [0.5, 2] and is 1 at the start.
 func TestMultiplierTransform(t *testing.T) {
-	pr := &problem{}
+	pr := &problem{lay: layout{mult: true}}
+	mult := func(x []float64) float64 {
+		q, err := pr.params(x)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return q.Multiplier
+	}
 	for _, x := range []float64{-1e6, -3, 0, 3, 1e6} {
-		m := pr.params([]float64{x}).Multiplier
+		m := mult([]float64{x})
 		if m < MinMultiplier || m > MaxMultiplier {
 			t.Errorf("x = %g: multiplier %g outside bounds", x, m)
 		}
 	}
-	if m := pr.params([]float64{0}).Multiplier; m != 1 {
+	if m := mult([]float64{0}); m != 1 {
 		t.Errorf("start multiplier %g, want 1", m)
 	}
 	for _, m := range []float64{0.6, 0.9, 1, 1.3, 1.9} {
-		if got := pr.params(pr.coords(Params{Multiplier: m})).Multiplier; math.Abs(got-m) > 1e-12 {
+		if got := mult(pr.coords(Params{Multiplier: m})); math.Abs(got-m) > 1e-12 {
 			t.Errorf("coords/params round trip %g → %g", m, got)
 		}
 	}

@@ -53,37 +53,23 @@ const (
 	Huber    Loss = "huber"    // Huber loss on relative errors: quadratic within HuberDelta, linear beyond
 )
 
-// Mode selects the tuning parameters.
-type Mode string
-
-// Modes.
-const (
-	Multiplier      Mode = "multiplier"       // one multiplier (default)
-	MultiplierShift Mode = "multiplier+shift" // a multiplier and an additive shift
-)
-
-// Options control tuning. The zero value means: one multiplier, relative errors, every point
-// weighted 1, Sutton pseudo-criticals for Z.
+// Options control tuning. The zero value means: the depth chosen by leave-one-out error,
+// relative errors, every point weighted 1, Sutton pseudo-criticals for Z.
 type Options struct {
 	// Depth forces a rung of the ladder; "" = the rung with the smallest leave-one-out error
-	// (a deeper rung only when it wins clearly).
+	// (a deeper rung only when it wins clearly, see chooseRung).
 	Depth      Depth
-	Mode       Mode    // "" = Multiplier (older form of Depth: multiplier+shift is the shape rung)
 	Loss       Loss    // "" = Relative
 	HuberDelta float64 // relative error where the Huber loss turns linear; 0 = 0.02
+	// Ridge is the strength λ of the refit depth's pull towards the published coefficients;
+	// 0 = RidgeStrength.
+	Ridge float64
 	// Excluded lists, per property, the indexes (into Problem.Points) of points left out.
 	Excluded map[PropertyID][]int
 	// Weights gives, per property, a weight per point (same length as the points); nil = 1.
 	Weights map[PropertyID][]float64
 	// PseudoCritical is the pseudo-critical family for Z, Bg and gas viscosity; "" = "sutton".
 	PseudoCritical string
-}
-
-func (o Options) mode() Mode {
-	if o.Mode == "" {
-		return Multiplier
-	}
-	return o.Mode
 }
 
 func (o Options) loss() Loss {
@@ -98,6 +84,13 @@ func (o Options) huberDelta() float64 {
 		return 0.02
 	}
 	return o.HuberDelta
+}
+
+func (o Options) ridge() float64 {
+	if o.Ridge <= 0 {
+		return RidgeStrength
+	}
+	return o.Ridge
 }
 
 func (o Options) pseudoCritical() string {
@@ -137,11 +130,38 @@ type Rung struct {
 	Flags   []string `json:"flags,omitempty"`
 }
 
-// Params are the tuning parameters of one property. Multiplier 1 and Shift 0 reproduce the
-// published correlation.
+// Params are the tuning parameters of one property. Multiplier 1, Shift 0, no Bend and no
+// Coefficients reproduce the published correlation.
+//
+// For pb the Multiplier is the pressure scale of the pair, Pb_tuned(R) = m·Pb(R') + s and
+// Rs_tuned(p) = Rsb·[Rs((p − s)/m)/Rsb]^e with R' = Rsb·(R/Rsb)^(1/e): at every tuned depth the
+// scale is fixed by the report's bubble point (the anchor), and e bends Rs(p) below Pb. For the
+// other properties the tuned value is a + m·b + s with a and b from the correlation (see the
+// models in models.go).
 type Params struct {
 	Multiplier float64 `json:"multiplier"`
 	Shift      float64 `json:"shift"`
+	// Bend is the exponent e that bends the pb pair (shape depth); 0 means none (1).
+	Bend float64 `json:"bend,omitempty"`
+	// Coefficients are the family's declared coefficients, in catalog order (refit depth);
+	// nil means the published values.
+	Coefficients []float64 `json:"coefficients,omitempty"`
+}
+
+// exponent returns the pb bend, 1 when none is set.
+func (q Params) bend() float64 {
+	if q.Bend == 0 {
+		return 1
+	}
+	return q.Bend
+}
+
+// clone returns a copy that does not share the coefficient slice.
+func (q Params) clone() Params {
+	if q.Coefficients != nil {
+		q.Coefficients = append([]float64(nil), q.Coefficients...)
+	}
+	return q
 }
 
 // Published are the parameters that reproduce the published correlation.
@@ -171,6 +191,22 @@ type Point struct {
 
 // Resolved returns the options with every default filled in, as the tuner uses them.
 func (o Options) Resolved() Options {
-	o.Mode, o.Loss, o.HuberDelta, o.PseudoCritical = o.mode(), o.loss(), o.huberDelta(), o.pseudoCritical()
+	o.Loss, o.HuberDelta, o.PseudoCritical, o.Ridge = o.loss(), o.huberDelta(), o.pseudoCritical(), o.ridge()
 	return o
+}
+
+// DeclaredCoefficients returns the refit coefficients that a family of a property declares in
+// the catalog (nil: none).
+func DeclaredCoefficients(p PropertyID, family string) []correlations.Coefficient {
+	switch p {
+	case Pb:
+		if f, err := correlations.SolutionGasByID(family); err == nil {
+			return f.Coefficients
+		}
+	case Bo:
+		if f, err := correlations.OilFVFByID(family); err == nil {
+			return f.Coefficients
+		}
+	}
+	return nil
 }

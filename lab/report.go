@@ -68,6 +68,17 @@ func (t SeparatorTest) Rsfb() float64 {
 	return s
 }
 
+// SeparatorGasGravity returns the GOR-weighted gravity of the gas of the stages ahead of the
+// stock tank (the separator gas), or of the single stage of a test that flashes straight to
+// the stock tank; 0 when none reports one.
+func (t SeparatorTest) SeparatorGasGravity() float64 {
+	stages := t.Stages
+	if len(stages) > 1 {
+		stages = stages[:len(stages)-1]
+	}
+	return SeparatorTest{Stages: stages}.GasGravity()
+}
+
 // GasGravity returns the GOR-weighted gravity of the gas from every stage that reports one,
 // or 0 when none does.
 func (t SeparatorTest) GasGravity() float64 {

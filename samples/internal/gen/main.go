@@ -77,6 +77,15 @@ func newTruth(s spec.Spec, sepP, sepT, sepGG float64) (*truth, error) {
 	if t.under, err = correlations.UnderViscosityByID(s.MuUnder); err != nil {
 		return nil, err
 	}
+	if s.PbCoef != nil {
+		with := t.sg
+		t.sg.BubblePoint = func(r float64, o correlations.Oil) (float64, error) { return with.BubblePointWith(r, o, s.PbCoef) }
+		t.sg.SolutionGOR = func(p float64, o correlations.Oil) (float64, error) { return with.SolutionGORWith(p, o, s.PbCoef) }
+	}
+	if s.BoCoef != nil {
+		with := t.bo
+		t.bo.FVF = func(p, rs float64, o correlations.Oil) (float64, error) { return with.FVFWith(p, rs, o, s.BoCoef) }
+	}
 	pb, err := t.sg.BubblePoint(s.Rsb, t.oil)
 	if err != nil {
 		return nil, err

@@ -20,6 +20,11 @@ type Spec struct {
 	MMuUnder, MZ                       float64
 	Noise                              float64 // relative noise (standard deviation)
 	Seed                               uint64
+
+	// PbCoef and BoCoef, when set, replace the published coefficients of the Pb and Bo families
+	// (in their catalog declaration order), so that the report's Rs and Bo curves have a shape
+	// that no published family has, as real oils do.
+	PbCoef, BoCoef []float64
 }
 
 // Specs are the three demo reports, in an invented field: the Tamsin Ridge field, operated by
@@ -28,7 +33,12 @@ var Specs = []Spec{
 	{ID: "tr3-black", Well: "TR-3", Description: "black oil, Tamsin Ridge TR-3 (invented)",
 		API: 30.5, GasGravity: 0.82, Temperature: 195, Rsb: 620,
 		Pb: "standing", Bo: "standing", Co: "vasquez-beggs", MuDead: "beggs-robinson", MuSat: "beggs-robinson", MuUnder: "vasquez-beggs",
-		MPb: 1.06, MBo: 0.96, MCo: 1.10, MMuDead: 1.08, MMuSat: 0.95, MMuUnder: 1.05, MZ: 1.01, Noise: 0.004, Seed: 3},
+		MPb: 0.73, MBo: 0.96, MCo: 1.10, MMuDead: 1.08, MMuSat: 0.95, MMuUnder: 1.05, MZ: 1.01, Noise: 0.004, Seed: 3,
+		// A straighter Rs(p) with more gas left at low pressure than any published family
+		// (Standing's offset 1.4 → 2.6 and exponent 1.2048 → 1.12, the pressure scale 0.73
+		// bringing Pb near 3,000 psia), and a Bo that bends less (exponent 1.2 → 1.15, its
+		// factor raised to keep Bob).
+		PbCoef: []float64{18.2, 2.6, 1.12}, BoCoef: []float64{1.15, 1.25, 0.5, 0.9759, 1.69e-4}},
 	{ID: "tr7-light", Well: "TR-7", Description: "light, volatile-leaning oil, Tamsin Ridge TR-7 (invented)",
 		API: 42, GasGravity: 0.88, Temperature: 240, Rsb: 1400, Metric: true,
 		Pb: "glaso", Bo: "glaso", Co: "petrosky-farshad", MuDead: "glaso", MuSat: "chew-connally", MuUnder: "beal",

@@ -1,0 +1,70 @@
+package fit
+
+import (
+	"math"
+	"testing"
+
+	"labmatch/lab"
+)
+
+// The published differential liberation of a real oil with its separator tests: the reservoir
+// fluid study of Good Oil Company Oil Well No. 4 (220 °F, Pb 2,620 psig, 40.7 °API), reprinted
+// in McCain, The Properties of Petroleum Fluids, 2nd ed., ch. 10, and in Lyons (ed.), Standard
+// Handbook of Petroleum & Natural Gas Engineering, Vol. 2, Table 6-11 (what was verified where:
+// testdata/published/good-oil-well-4/SOURCE.md). Acceptance figures of the tuning-depth issue:
+// Pb exact, the best family's Rs AARE at most 3 % and Bo at most 0.3 % after tuning, and every
+// rung's leave-one-out error reported.
+const (
+	publishedRsAARE = 3.0
+	publishedBoAARE = 0.3
+)
+
+func TestPublishedReportTuning(t *testing.T) {
+	r, err := lab.ReadFolder("../testdata/published/good-oil-well-4")
+	if err != nil {
+		t.Fatal(err)
+	}
+	ds, err := NewDataset(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := TuneAll(ds, nil, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, err := NewModel(ds, res, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(m.Pb/ds.Pb-1) > inverseTol {
+		t.Errorf("tuned Pb %.6g psia, report %.6g psia", m.Pb, ds.Pb)
+	}
+	if rs, _ := m.Rs(ds.Pb * (1 - 1e-12)); math.Abs(rs/ds.Rsb-1) > 1e-6 {
+		t.Errorf("Rs at Pb %.6g, Rsb %.6g", rs, ds.Rsb)
+	}
+	pb := res[Pb]
+	if pb.Tuned.AARE > publishedRsAARE {
+		t.Errorf("pb %s at %s: AARE %.2f %%, want at most %g %%", pb.Family, pb.Depth, pb.Tuned.AARE, publishedRsAARE)
+	}
+	if bo := res[Bo]; bo.Tuned.AARE > publishedBoAARE {
+		t.Errorf("bo %s at %s: AARE %.2f %%, want at most %g %%", bo.Family, bo.Depth, bo.Tuned.AARE, publishedBoAARE)
+	}
+	for _, p := range []PropertyID{Pb, Bo, Co, MuSat, Z} {
+		rr, ok := res[p]
+		if !ok {
+			t.Errorf("%s: not tuned", p)
+			continue
+		}
+		if len(rr.Ladder) != len(Depths) {
+			t.Errorf("%s: %d rungs, want %d", p, len(rr.Ladder), len(Depths))
+		}
+		for _, g := range rr.Ladder {
+			if g.Skipped == "" && g.LOO == nil && g.LOONote == "" {
+				t.Errorf("%s %s: neither a leave-one-out error nor a reason", p, g.Depth)
+			}
+		}
+		if rr.LOO == nil {
+			t.Errorf("%s: the chosen rung %s has no leave-one-out error", p, rr.Depth)
+		}
+	}
+}
