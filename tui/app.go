@@ -473,16 +473,27 @@ func (m Model) statusLine() string {
 	if p == "" {
 		return ""
 	}
-	parts := []string{st.Bold.Render(string(p))}
+	line := st.Bold.Render(string(p))
 	if r, ok := s.results[p]; ok {
-		parts = append(parts, r.Family, "depth "+depthText(s, p, r),
-			"×"+num(r.Params.Multiplier, 3),
-			fmt.Sprintf("AARE tuned %s %%", num(r.Tuned.AARE, 2)),
-			fmt.Sprintf("LOO %s", pctWithUnit(r.LOO)))
+		mult := "multiplier "
+		if r.Anchored {
+			mult = "pressure scale "
+		}
+		full := []string{line + " " + r.Family, "depth " + depthText(s, p, r), mult + num(r.Params.Multiplier, 3),
+			fmt.Sprintf("AARE tuned %s %%", num(r.Tuned.AARE, 2)), fmt.Sprintf("leave-one-out %s", pctWithUnit(r.LOO))}
+		line = strings.Join(full, st.Dim.Render(" · "))
+		if lipgloss.Width(line) > c.width-12 { // short forms, leaving room for "fitting…"
+			d := string(r.Depth)
+			if d == "" {
+				d = "n/a"
+			}
+			short := []string{full[0], d, "×" + num(r.Params.Multiplier, 3),
+				fmt.Sprintf("AARE %s %%", num(r.Tuned.AARE, 2)), fmt.Sprintf("LOO %s", pctWithUnit(r.LOO))}
+			line = strings.Join(short, st.Dim.Render(" · "))
+		}
 	} else if err := s.fitErr[p]; err != nil {
-		parts = append(parts, st.Err.Render("not tuned"))
+		line += " " + st.Err.Render("not tuned")
 	}
-	line := strings.Join(parts, st.Dim.Render(" · "))
 	if s.anyBusy() || !s.started {
 		line += "  " + st.Busy.Render("fitting…")
 	} else if s.rankBusy || len(s.rankDirty) > 0 {

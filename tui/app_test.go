@@ -402,23 +402,32 @@ func TestMutatedReportMarksRow(t *testing.T) {
 	m = press(t, m, "1")
 	lines, _ := reportContent(m.c, 120)
 	var finding int
+	var row int
 	for i, f := range m.c.s.findings {
 		if f.Code == "sep-bofb-above-bodb" {
-			finding = i + 1
+			finding, row = i+1, f.Row
 		}
 	}
 	if finding == 0 {
 		t.Fatal("the QC does not find the wrong Bofb")
 	}
+	// The mutated test S2 (testdata/mutated/README.md); its Bofb is on its stock-tank row.
+	var bofb float64
+	for _, st := range m.c.s.report.Separator {
+		if st.ID == "S2" {
+			bofb = st.Bofb
+		}
+	}
 	mark := fmt.Sprintf("W%d", finding)
 	found := false
 	for _, l := range lines {
-		if strings.HasPrefix(l, mark) && strings.Contains(l, "1.4513") {
+		f := strings.Fields(l)
+		if len(f) > 2 && f[0] == mark && f[1] == fmt.Sprint(row) && strings.Contains(l, num(bofb, 4)) {
 			found = true
 		}
 	}
 	if !found {
-		t.Errorf("no %s mark beside the separator row with Bofb 1.4513:\n%s", mark, strings.Join(lines, "\n"))
+		t.Errorf("no %s mark beside separator.csv line %d with Bofb %s:\n%s", mark, row, num(bofb, 4), strings.Join(lines, "\n"))
 	}
 }
 

@@ -14,17 +14,21 @@ var sinkView string
 // core (go test ./tui -run XXX -bench ExcludeRefit -cpu 1). The ranking and table refreshes
 // that follow run in the background in the program and are not part of the frame.
 func BenchmarkExcludeRefitView(b *testing.B) {
-	m := newTest(b, 120, 40)
-	m = focus(b, m, fit.Bo)
-	m = press(b, m, "down")
-	b.ReportAllocs()
-	for b.Loop() {
-		next, cmd := m.Update(keyMsg("space"))
-		m = next.(Model)
-		msg := cmd()
-		next, _ = m.Update(msg)
-		m = next.(Model)
-		sinkView = m.View()
+	for _, p := range []fit.PropertyID{fit.Pb, fit.Bo, fit.MuSat} {
+		b.Run(string(p), func(b *testing.B) {
+			m := newTest(b, 120, 40)
+			m = focus(b, m, p)
+			m = press(b, m, "down")
+			b.ReportAllocs()
+			for b.Loop() {
+				next, cmd := m.Update(keyMsg("space"))
+				m = next.(Model)
+				msg := cmd()
+				next, _ = m.Update(msg)
+				m = next.(Model)
+				sinkView = m.View()
+			}
+		})
 	}
 }
 

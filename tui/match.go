@@ -332,18 +332,14 @@ func (m matchScreen) plotLines(c *common, p fit.PropertyID, r fit.Result, w, h i
 func (m matchScreen) bottomLines(c *common, p fit.PropertyID, r fit.Result, w, h int) []string {
 	s, st := c.s, c.styles
 	var out []string
-	par := "multiplier " + num(r.Params.Multiplier, 4) + " " + interval(r, "multiplier", 4)
-	if r.Shifted {
-		sc, unit := 1.0, r.ShiftUnit
-		if p == fit.Co {
-			sc, unit = 1e6, "1e-6/psi"
-		}
-		par += "   shift " + sig(r.Params.Shift*sc, 4) + " " + unit + " " + intervalScaled(r, "shift", sc)
+	out = append(out, wrap(st.Bold.Render("parameters ")+strings.Join(paramTexts(p, r), " · "), w, "           ")...)
+	rmse, rmseUnit := r.Tuned.RMSE, r.Tuned.RMSEUnit
+	if p == fit.Co {
+		rmse, rmseUnit = rmse*1e6, "1e-6/psi"
 	}
-	out = append(out, cell(st.Bold.Render("parameters ")+par, w))
-	stats := fmt.Sprintf("AARE published %s %% → tuned %s %%   bias %s %%   max |RE| %s %%   RMSE %s %s   LOO %s",
+	stats := fmt.Sprintf("AARE published %s %% → tuned %s %% · bias %s %% · max |RE| %s %% · RMSE %s %s · leave-one-out AARE %s",
 		num(r.Published.AARE, 2), num(r.Tuned.AARE, 2), signed(r.Tuned.Bias), num(r.Tuned.MaxARE, 2),
-		sig(r.Tuned.RMSE, 3), r.Tuned.RMSEUnit, pctWithUnit(r.LOO))
+		sig(rmse, 3), rmseUnit, pctWithUnit(r.LOO))
 	out = append(out, wrap(st.Bold.Render("errors ")+stats, w, "       ")...)
 	out = append(out, m.ladderLines(c, p, r, w, h)...)
 	var remarks []string
@@ -395,7 +391,7 @@ func (m matchScreen) ladderLines(c *common, p fit.PropertyID, r fit.Result, w, h
 			}
 			parts = append(parts, t)
 		}
-		return []string{cell(st.Bold.Render("ladder ")+st.Dim.Render("AARE train/LOO % ")+strings.Join(parts, st.Dim.Render(" · ")), w)}
+		return wrap(st.Bold.Render("ladder ")+st.Dim.Render("AARE train/LOO %: ")+strings.Join(parts, st.Dim.Render(" · ")), w, "       ")
 	}
 	out := []string{st.Header.Render(cell(fmt.Sprintf("  %-11s %4s  %11s  %10s  %s", "depth", "free", "AARE train %", "AARE LOO %", "note"), w))}
 	for _, d := range fit.Depths {
@@ -454,7 +450,7 @@ func yAxisTitle(p fit.PropertyID, r fit.Result) string {
 	case fit.Bo:
 		return "Bo [rb/STB]"
 	case fit.Co:
-		return "average co from Psat [1e-6/psi]"
+		return "co, average from Psat [1e-6/psi]"
 	case fit.MuDead, fit.MuSat, fit.MuUnder:
 		return "oil viscosity [cP]"
 	case fit.Z:
@@ -476,7 +472,7 @@ func unitOf(p fit.PropertyID, r fit.Result) string {
 			return res.Unit
 		}
 	}
-	return ""
+	return "dimensionless"
 }
 
 // scaleOf is the display scale of a property's values: compressibility in 1e-6/psi.
@@ -512,6 +508,40 @@ func signed(v float64) string {
 		return "—"
 	}
 	return fmt.Sprintf("%+.2f", v)
+}
+
+// paramTexts describes the tuned parameters with their 95 % intervals.
+func paramTexts(p fit.PropertyID, r fit.Result) []string {
+	if r.Depth == fit.DepthPublished {
+		return []string{"none: the published correlation"}
+	}
+	var out []string
+	if p == fit.Pb && r.Anchored {
+		out = append(out, "pressure scale "+num(r.Params.Multiplier, 4)+" fixed by the report's Pb (Pb exact)")
+	} else {
+		out = append(out, "multiplier "+num(r.Params.Multiplier, 4)+" "+interval(r, "multiplier", 4))
+	}
+	if r.Shifted {
+		sc, unit := 1.0, r.ShiftUnit
+		if p == fit.Co {
+			sc, unit = 1e6, "1e-6/psi"
+		}
+		out = append(out, "shift "+sig(r.Params.Shift*sc, 4)+" "+unit+" "+intervalScaled(r, "shift", sc))
+	}
+	if r.Params.Bend != 0 {
+		out = append(out, "bend "+num(r.Params.Bend, 4)+" "+interval(r, "bend", 4)+" (exponent on Rs/Rsb below Pb)")
+	}
+	if r.Params.Coefficients != nil {
+		pub := fit.DeclaredCoefficients(p, r.Family)
+		for j, v := range r.Params.Coefficients {
+			if j >= len(pub) || j >= len(r.CoefficientIDs) || v == pub[j].Value {
+				continue
+			}
+			id := r.CoefficientIDs[j]
+			out = append(out, id+" "+sig(v, 5)+" (published "+sig(pub[j].Value, 5)+") "+intervalScaled(r, id, 1))
+		}
+	}
+	return out
 }
 
 func interval(r fit.Result, name string, dec int) string {

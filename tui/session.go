@@ -450,7 +450,7 @@ func plotRange(ds *fit.Dataset, p fit.PropertyID) (lo, hi float64) {
 	case fit.MuDead:
 		return 0, 100
 	}
-	return 0, pmax * 1.04
+	return 0, pmax * 1.1 // room beyond Pb for its mark and the flat Rs above it
 }
 
 // plotGrid is the pressure grid of a property's plot, with Pb itself on it.
