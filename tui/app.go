@@ -218,7 +218,7 @@ func (m Model) onKey(msg tea.KeyMsg) (tea.Model, tea.Cmd) {
 		case key.Matches(msg, m.keys.Help), msg.Type == tea.KeyEsc:
 			m.showHelp = false
 		case msg.Type == tea.KeyDown:
-			m.helpTop++
+			m.helpTop = min(m.helpTop+1, max(0, len(m.helpLines(m.c.width))-(m.c.height-5)))
 		case msg.Type == tea.KeyUp:
 			m.helpTop = max(0, m.helpTop-1)
 		}
@@ -528,6 +528,19 @@ func (m Model) shortHelp() string {
 // same bindings that drive them, then the cautions.
 func (m Model) helpView(w, h int) string {
 	st := m.c.styles
+	lines := m.helpLines(w)
+	if len(lines) <= h {
+		return strings.Join(lines, "\n")
+	}
+	room := max(1, h-1)
+	top := min(m.helpTop, len(lines)-room)
+	out := append([]string(nil), lines[top:top+room]...)
+	return strings.Join(append(out, st.Dim.Render(fmt.Sprintf("── ↑/↓ scroll (%d–%d of %d) · ? or esc closes", top+1, top+room, len(lines)))), "\n")
+}
+
+// helpLines are the lines of the help overlay at width w.
+func (m Model) helpLines(w int) []string {
+	st := m.c.styles
 	var groups [][]key.Binding
 	var title string
 	switch m.active {
@@ -547,9 +560,20 @@ func (m Model) helpView(w, h int) string {
 	lines = append(lines, strings.Split(m.help.FullHelpView(m.keys.FullHelp()), "\n")...)
 	lines = append(lines, "", st.Header.Render("Cautions"))
 	lines = append(lines, wrap(cautions, w, "")...)
-	lines = append(lines, "", st.Dim.Render("? or esc closes this help; ↑/↓ scroll"))
-	top := min(m.helpTop, max(0, len(lines)-h))
-	return strings.Join(lines[top:], "\n")
+	lines = append(lines, "", st.Header.Render("Terms"))
+	for _, t := range terms {
+		lines = append(lines, wrap(st.Bold.Render(t[0])+" · "+t[1], w, "    ")...)
+	}
+	return append(lines, "", st.Dim.Render("? or esc closes this help"))
+}
+
+// terms explains the words the screens use.
+var terms = [][2]string{
+	{"AARE", "average absolute relative error of the points in the fit, %"},
+	{"LOO", "leave-one-out AARE: each point refitted without itself and then predicted; the honest error of a rung"},
+	{"depth", "the rung of the tuning ladder: published (no parameter), multiplier, shape (pb: a bend of Rs below Pb; others: a shift), refit (the family's own coefficients, held near their published values); by LOO = the rung with the smallest LOO, a deeper one only when it wins clearly; d sets one"},
+	{"pressure scale", "pb: fixed by the report's bubble point, so the tuned Pb equals it exactly"},
+	{"separator basis", "DL volumes and GORs converted to the selected separator test (Bo = Bod·Bofb/Bodb); the tuning uses these"},
 }
 
 // cautions are the cautions of DESIGN.md §8.

@@ -531,3 +531,32 @@ func assertFits(t testing.TB, v string, w, h int) {
 		}
 	}
 }
+
+// A report without a separator test reads, but cannot be tuned: the Report screen shows it and
+// the other screens say why.
+func TestReportWithoutSeparatorTest(t *testing.T) {
+	load := func() (*lab.Report, error) {
+		r, err := samples.Load(samples.Default)
+		if err != nil {
+			return nil, err
+		}
+		r.Separator = nil
+		return r, nil
+	}
+	m := newTest(t, 100, 30, WithReport("no-separator", load))
+	if m.active != screenReport {
+		t.Errorf("opens on %v, want Report", m.active)
+	}
+	if v := m.View(); !strings.Contains(v, "Differential liberation") {
+		t.Errorf("Report screen:\n%s", v)
+	}
+	for _, k := range []string{"2", "3", "4"} {
+		m = press(t, m, k, "space", "d", "enter", "s")
+		if v := m.View(); !strings.Contains(v, "This report cannot be tuned") || !strings.Contains(v, "separator") {
+			t.Errorf("screen %s:\n%s", k, v)
+		}
+		if m.prompt.active() {
+			t.Error("a save prompt opened for an untuned report")
+		}
+	}
+}

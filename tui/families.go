@@ -104,7 +104,11 @@ func (f familiesScreen) view(c *common, w, h int) string {
 	if w < 90 {
 		famW, nw = 20, 8
 	}
-	hdr := fmt.Sprintf("    %-*s %*s %*s %*s  %-10s %6s  %s", famW, "family", nw, "published", nw, "tuned", nw, "LOO", "depth", "mult.", "range")
+	mult := "mult."
+	if p == fit.Pb {
+		mult = "scale" // the pressure scale of the pair
+	}
+	hdr := fmt.Sprintf("    %-*s %*s %*s %*s  %-10s %6s  %s", famW, "family", nw, "published", nw, "tuned", nw, "LOO", "depth", mult, "range")
 	lines = append(lines, st.Header.Render(cell(hdr, w)))
 	cur := min(f.cursor[p], max(0, len(es)-1))
 	room := max(1, h-len(lines)-7)
