@@ -645,5 +645,5 @@ func pctWithUnit(v *float64) string {
 	if v == nil {
 		return "n/a"
 	}
-	return num(*v, 2) + " %"
+	return num(*v, 2) + "\u00a0%"
 }

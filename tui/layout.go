@@ -71,9 +71,13 @@ func wrap(text string, w int, indent string) []string {
 		return []string{cell(text, max(w, 0))}
 	}
 	lead := text[:len(text)-len(strings.TrimLeft(text, " "))]
+	text = strings.TrimLeft(text, " ")
 	var out []string
 	line := lead
-	for _, word := range strings.Fields(text) {
+	for _, word := range strings.Split(text, " ") { // a no-break space ( ) holds words together
+		if word == "" {
+			continue
+		}
 		switch {
 		case strings.TrimSpace(line) == "":
 			line += word

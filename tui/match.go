@@ -332,12 +332,12 @@ func (m matchScreen) plotLines(c *common, p fit.PropertyID, r fit.Result, w, h i
 func (m matchScreen) bottomLines(c *common, p fit.PropertyID, r fit.Result, w, h int) []string {
 	s, st := c.s, c.styles
 	var out []string
-	out = append(out, wrap(st.Bold.Render("parameters ")+strings.Join(paramTexts(p, r), " · "), w, "           ")...)
+	out = append(out, wrap(st.Bold.Render("parameters ")+strings.Join(paramTexts(p, r, w < 100), " · "), w, "           ")...)
 	rmse, rmseUnit := r.Tuned.RMSE, r.Tuned.RMSEUnit
 	if p == fit.Co {
 		rmse, rmseUnit = rmse*1e6, "1e-6/psi"
 	}
-	stats := fmt.Sprintf("AARE published %s %% → tuned %s %% · bias %s %% · max |RE| %s %% · RMSE %s %s · leave-one-out AARE %s",
+	stats := fmt.Sprintf("AARE published %s\u00a0%% → tuned %s\u00a0%% · bias %s\u00a0%% · max |RE| %s\u00a0%% · RMSE %s\u00a0%s · leave-one-out AARE %s",
 		num(r.Published.AARE, 2), num(r.Tuned.AARE, 2), signed(r.Tuned.Bias), num(r.Tuned.MaxARE, 2),
 		sig(rmse, 3), rmseUnit, pctWithUnit(r.LOO))
 	out = append(out, wrap(st.Bold.Render("errors ")+stats, w, "       ")...)
@@ -511,7 +511,8 @@ func signed(v float64) string {
 }
 
 // paramTexts describes the tuned parameters with their 95 % intervals.
-func paramTexts(p fit.PropertyID, r fit.Result) []string {
+// compact leaves the refitted coefficients' intervals out (narrow windows).
+func paramTexts(p fit.PropertyID, r fit.Result, compact bool) []string {
 	if r.Depth == fit.DepthPublished {
 		return []string{"none: the published correlation"}
 	}
@@ -538,7 +539,11 @@ func paramTexts(p fit.PropertyID, r fit.Result) []string {
 				continue
 			}
 			id := r.CoefficientIDs[j]
-			out = append(out, id+" "+sig(v, 5)+" (published "+sig(pub[j].Value, 5)+") "+intervalScaled(r, id, 1))
+			if compact {
+				out = append(out, id+" "+sig(v, 4)+" (publ. "+sig(pub[j].Value, 4)+")")
+			} else {
+				out = append(out, id+" "+sig(v, 5)+" (published "+sig(pub[j].Value, 5)+") "+intervalScaled(r, id, 1))
+			}
 		}
 	}
 	return out
@@ -547,9 +552,9 @@ func paramTexts(p fit.PropertyID, r fit.Result) []string {
 func interval(r fit.Result, name string, dec int) string {
 	ci, ok := r.CI95[name]
 	if !ok {
-		return "(95 % interval n/a)"
+		return "(95\u00a0% interval n/a)"
 	}
-	s := "(95 %: " + num(ci[0], dec) + "–" + num(ci[1], dec) + ")"
+	s := "(95\u00a0%: " + num(ci[0], dec) + "–" + num(ci[1], dec) + ")"
 	if r.CIAssumed {
 		s += " assumed lab uncertainty"
 	}
@@ -561,7 +566,7 @@ func intervalScaled(r fit.Result, name string, sc float64) string {
 	if !ok {
 		return ""
 	}
-	return "(95 %: " + sig(ci[0]*sc, 3) + " to " + sig(ci[1]*sc, 3) + ")"
+	return "(95\u00a0%: " + sig(ci[0]*sc, 3) + "\u00a0to\u00a0" + sig(ci[1]*sc, 3) + ")"
 }
 
 func minMax(vs []float64) (lo, hi float64) {
