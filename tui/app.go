@@ -312,7 +312,7 @@ func (m Model) onStarted(msg startedMsg) (tea.Model, tea.Cmd) {
 		if r, ok := msg.results[p]; ok {
 			s.results[p], s.choice[p], s.curves[p] = r, r.Family, msg.curves[p]
 			if msg.applied && r.Depth != "" {
-				s.depth[p] = r.Depth // a tuning file fixes the rung it was saved at
+				s.depth[p], s.fromFile[p] = r.Depth, true // a tuning file fixes the rung it was saved at
 			}
 		}
 		if err, ok := msg.errs[p]; ok {
@@ -633,6 +633,9 @@ func depthText(s *session, p fit.PropertyID, r fit.Result) string {
 		d = string(s.depth[p])
 	case d == "":
 		d = "n/a"
+	}
+	if s.fromFile[p] {
+		return d + " (tuning file)"
 	}
 	if forced {
 		return d + " (set)"

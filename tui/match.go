@@ -73,6 +73,7 @@ func (m matchScreen) update(msg tea.KeyMsg, c *common) (matchScreen, tea.Cmd, st
 			}
 		}
 		s.depth[p] = depthCycle[(i+step)%len(depthCycle)]
+		delete(s.fromFile, p)
 		return m, s.refit(p), ""
 	case key.Matches(msg, m.keys.Objective):
 		if !s.started {

@@ -32,6 +32,7 @@ type session struct {
 	loss     fit.Loss
 	excluded map[fit.PropertyID][]int     // sorted indexes into ds.Points[p]
 	depth    map[fit.PropertyID]fit.Depth // forced rung; "" = chosen by leave-one-out
+	fromFile map[fit.PropertyID]bool      // the rung is the tuning file's, not changed since
 	choice   fit.Choice
 	results  map[fit.PropertyID]fit.Result
 	fitErr   map[fit.PropertyID]error
@@ -86,7 +87,7 @@ type comparedFit struct {
 func newSession(tool, src string) *session {
 	return &session{
 		tool: tool, src: src, loss: fit.Relative,
-		excluded: map[fit.PropertyID][]int{}, depth: map[fit.PropertyID]fit.Depth{},
+		excluded: map[fit.PropertyID][]int{}, depth: map[fit.PropertyID]fit.Depth{}, fromFile: map[fit.PropertyID]bool{},
 		choice: fit.Choice{}, results: map[fit.PropertyID]fit.Result{}, fitErr: map[fit.PropertyID]error{},
 		curves: map[fit.PropertyID]curveSet{}, compare: map[fit.PropertyID][]string{},
 		compared: map[fit.PropertyID]map[string]comparedFit{},
