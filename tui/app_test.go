@@ -560,3 +560,20 @@ func TestReportWithoutSeparatorTest(t *testing.T) {
 		}
 	}
 }
+
+func TestBranchPressures(t *testing.T) {
+	for _, c := range []struct {
+		p, pmax float64
+		want    []float64
+	}{
+		{14.7, 7500, []float64{2500, 5000, 7500}},
+		{3000, 7500, []float64{4000, 6000, 7500}},
+		{7000, 7500, []float64{7200, 7400, 7500}},
+		{7500, 7500, nil},
+	} {
+		got := branchPressures(c.p, c.pmax)
+		if fmt.Sprint(got) != fmt.Sprint(c.want) {
+			t.Errorf("branchPressures(%v, %v) = %v, want %v", c.p, c.pmax, got, c.want)
+		}
+	}
+}

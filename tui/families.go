@@ -99,7 +99,7 @@ func (f familiesScreen) view(c *common, w, h int) string {
 	if !ok {
 		return strings.Join(append(lines, st.Dim.Render("ranking…")), "\n")
 	}
-	lines = append(lines, st.Title.Render(propertyTitle(p))+st.Dim.Render(fmt.Sprintf("   %d points · best first · %s errors", len(s.ds.Points[p]), s.loss)))
+	lines = append(lines, st.Title.Render(propertyTitle(p))+st.Dim.Render(fmt.Sprintf("   %s · best first · %s errors", plural(len(s.ds.Points[p]), "point"), s.loss)))
 	famW, nw := 22, 9
 	if w < 90 {
 		famW, nw = 20, 8
@@ -226,4 +226,12 @@ func ptrNum(v *float64, dec int) string {
 		return "n/a"
 	}
 	return num(*v, dec)
+}
+
+// plural writes "1 point", "5 points".
+func plural(n int, word string) string {
+	if n == 1 {
+		return fmt.Sprintf("1 %s", word)
+	}
+	return fmt.Sprintf("%d %ss", n, word)
 }

@@ -559,8 +559,7 @@ func buildTable(ds *fit.Dataset, results map[fit.PropertyID]fit.Result, opts fit
 		t.rows = append(t.rows, tableRow{kind: kind, st: st, err: err})
 		var br []tableRow
 		if kind == rowSaturated && err == nil {
-			for k := 1; k <= 3; k++ {
-				pu := p + float64(k)*(t.pmax-p)/3
+			for _, pu := range branchPressures(st.Pressure, t.pmax) {
 				bs, err := m.Undersaturated(st.Rs, pu)
 				br = append(br, tableRow{kind: rowBranch, st: bs, err: err})
 			}
@@ -684,4 +683,20 @@ func (s *session) onTable(msg tableMsg) {
 	}
 	s.tableBusy = false
 	s.table = msg.table
+}
+
+// branchPressures are the pressures of a saturated row's undersaturated branch: round values
+// above p, about a third of the way to pmax apart, ending at pmax.
+func branchPressures(p, pmax float64) []float64 {
+	if !(pmax > p) {
+		return nil
+	}
+	step := niceStep((pmax - p) / 3)
+	var out []float64
+	for q := math.Floor(p/step)*step + step; q < pmax*(1-1e-9); q += step {
+		if q > p*(1+1e-9) {
+			out = append(out, q)
+		}
+	}
+	return append(out, pmax)
 }

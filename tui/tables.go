@@ -144,7 +144,7 @@ func (t tablesScreen) view(c *common, w, h int) string {
 		return strings.Join(append([]string{st.Err.Render("The tuned model cannot be built")}, wrap(td.err.Error(), w, "  ")...), "\n")
 	}
 	m := td.model
-	head = append(head, wrap(st.Title.Render("Black-oil table of the tuned model")+fmt.Sprintf("  at %s °F · tuned Pb %s psia · Rsb %s scf/STB · rows every %s psia to %s psia",
+	head = append(head, wrap(st.Title.Render("Black-oil table of the tuned model")+fmt.Sprintf("  at %s\u00a0°F · tuned Pb %s\u00a0psia · Rsb %s\u00a0scf/STB · rows every %s\u00a0psia to %s\u00a0psia",
 		num(m.Oil.Temperature, 0), num(m.Pb, 1), num(m.Rsb, 0), num(td.step, 0), num(td.pmax, 0)), w, "  ")...)
 	var fams []string
 	for _, p := range s.props {
