@@ -577,3 +577,62 @@ func TestBranchPressures(t *testing.T) {
 		}
 	}
 }
+
+// Without a viscosity measured at Pb, the undersaturated viscosity starts from the tuned
+// saturated one: leaving a saturated point out refits both, as TuneAll chains them.
+func TestChainedViscosityRefit(t *testing.T) {
+	load := func() (*lab.Report, error) {
+		r, err := samples.Load(samples.Default)
+		if err != nil {
+			return nil, err
+		}
+		var keep []lab.ViscosityPoint
+		for _, v := range r.Viscosity {
+			if v.Pressure != r.Fluid.Pb {
+				keep = append(keep, v)
+			}
+		}
+		r.Viscosity = keep
+		return r, nil
+	}
+	m := newTest(t, 120, 40, WithReport("no-mu-at-pb", load))
+	s := m.c.s
+	if s.ds.MuBLab != 0 || !chained(s.ds, fit.MuUnder) {
+		t.Fatalf("the report still has a viscosity at Pb (%v)", s.ds.MuBLab)
+	}
+	before := s.results[fit.MuUnder].Params.Multiplier
+	m = focus(t, m, fit.MuSat)
+	m = press(t, m, "down", "space")
+	opts := fit.Options{Excluded: map[fit.PropertyID][]int{fit.MuSat: {1}}}
+	ref, err := fit.TuneAll(s.ds, s.choiceCopy(), opts)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range []fit.PropertyID{fit.MuSat, fit.MuUnder} {
+		if got, want := s.results[p].Params.Multiplier, ref[p].Params.Multiplier; math.Abs(got-want) > 1e-12 {
+			t.Errorf("%s multiplier %v, TuneAll gives %v", p, got, want)
+		}
+	}
+	if s.results[fit.MuUnder].Params.Multiplier == before {
+		t.Error("mu_under was not refitted after mu_sat changed")
+	}
+}
+
+// A fit that fails leaves the last good result on screen, says why and undoes the change
+// that caused it.
+func TestFailedFitKeepsResult(t *testing.T) {
+	m := newTest(t, 120, 40)
+	m = focus(t, m, fit.Bo)
+	s := m.c.s
+	good := s.results[fit.Bo]
+	next, _ := m.Update(keyMsg("space"))
+	m = next.(Model)
+	m = send(t, m, fitMsg{prop: fit.Bo, seq: s.seq[fit.Bo], err: errors.New("fit: bo: test failure")})
+	if s.results[fit.Bo].Params.Multiplier != good.Params.Multiplier || s.isExcluded(fit.Bo, 0) || s.busy[fit.Bo] {
+		t.Error("a failed fit changed the shown result or kept the exclusion")
+	}
+	v := m.View()
+	if !strings.Contains(v, "fit: bo: test failure") || !strings.Contains(v, "last refit failed") {
+		t.Errorf("the failure is not shown:\n%s", v)
+	}
+}
