@@ -8,6 +8,7 @@ import (
 	"os"
 	"slices"
 	"sort"
+	"strings"
 
 	"labmatch/fit"
 	"labmatch/lab"
@@ -153,6 +154,9 @@ func (tf *TuningFile) upgrade() {
 	}
 	for p, pt := range tf.Properties {
 		pt.Depth = d
+		if fit.PropertyID(p) == fit.Z && !strings.Contains(pt.Family, "+") {
+			pt.Family = v1PseudoCritical(tf.Options.PseudoCritical) + "+" + pt.Family
+		}
 		tf.Properties[p] = pt
 	}
 	tf.Options.Mode, tf.Options.Depth = "", ""
@@ -194,7 +198,11 @@ func (tf TuningFile) validate() error {
 		if len(fams) == 0 {
 			return fmt.Errorf("unknown property %q", p)
 		}
-		if !slices.Contains(fams, pt.Family) {
+		fam := pt.Family
+		if fit.PropertyID(p) == fit.Z && !strings.Contains(fam, "+") {
+			fam = v1PseudoCritical(tf.Options.PseudoCritical) + "+" + fam // a version 1 Z method id
+		}
+		if !slices.Contains(fams, fam) {
 			return fmt.Errorf("property %q: unknown family %q (known: %v)", p, pt.Family, fams)
 		}
 		if tf.FormatVersion > 1 && !validDepth(pt.Depth) {
@@ -236,3 +244,11 @@ func (tf TuningFile) validate() error {
 }
 
 func validDepth(d fit.Depth) bool { return slices.Contains(fit.Depths, d) }
+
+// v1PseudoCritical is the pseudo-critical method a version 1 file's Z method ran with.
+func v1PseudoCritical(recorded string) string {
+	if recorded == "" {
+		return "sutton"
+	}
+	return recorded
+}

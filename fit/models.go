@@ -55,11 +55,12 @@ func newModel(ds *Dataset, p PropertyID, family string, opts Options, muDead, mu
 		f, err := correlations.UnderViscosityByID(family)
 		return muUnderModel{f, ds.Oil, ds.Pb, muB}, err
 	case Z:
-		f, err := correlations.ZByID(family)
+		pcID, zID := splitZFamily(family, opts)
+		f, err := correlations.ZByID(zID)
 		if err != nil {
 			return nil, err
 		}
-		pc, err := correlations.PseudoCriticalByID(opts.pseudoCritical())
+		pc, err := correlations.PseudoCriticalByID(pcID)
 		return zModel{f, pc, ds.Oil.Temperature, ds.H2S, ds.CO2}, err
 	}
 	return nil, fmt.Errorf("fit: unknown property %q", p)
@@ -287,5 +288,5 @@ func (m zModel) z(p, gg float64) (float64, error) {
 			return 0, err
 		}
 	}
-	return m.f.Z((m.tF+459.67)/tpc, p/ppc)
+	return m.f.Z((m.tF+correlations.RankineOffset)/tpc, p/ppc)
 }

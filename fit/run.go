@@ -121,7 +121,7 @@ func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, s
 	if chosen.rung.Depth != DepthPublished {
 		res.NoFit = noFitRemark(prop, family, pr.pts, pr.free, chosen.vals)
 	}
-	if e, err := correlations.Lookup(catalogProperty(prop), family); err == nil {
+	if e, err := catalogEntry(prop, family); err == nil {
 		res.OutOfRange = e.Check(ds.rangeInputs())
 	}
 	return res, nil
@@ -388,7 +388,9 @@ type rankJob struct {
 // viscosity families are scored with the measured dead-oil viscosity and viscosity at Pb
 // (published fallbacks when the report has none), not with the tuned ones that TuneAll
 // chains, so that each family is judged on its own.
-func Rank(ds *Dataset, opts Options) Ranking { return rank(ds, opts, Families) }
+func Rank(ds *Dataset, opts Options) Ranking {
+	return rank(ds, opts, func(p PropertyID) []string { return familiesFor(p, opts) })
+}
 
 func rank(ds *Dataset, opts Options, families func(PropertyID) []string) Ranking {
 	rk := Ranking{}
@@ -465,7 +467,7 @@ func score(ds *Dataset, p PropertyID, family string, opts Options) RankEntry {
 	r, err := Tune(ds, p, family, opts)
 	if err != nil {
 		e.Failed = err.Error()
-		if ce, err := correlations.Lookup(catalogProperty(p), family); err == nil {
+		if ce, err := catalogEntry(p, family); err == nil {
 			e.OutOfRange = ce.Check(ds.rangeInputs())
 			e.InRange = len(e.OutOfRange) == 0
 		}

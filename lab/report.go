@@ -19,6 +19,7 @@ type Fluid struct {
 	Temperature    float64        // reservoir temperature, °F
 	Pb             float64        // saturation (bubble-point) pressure reported, psia
 	API            float64        // stock-tank oil gravity, °API
+	ResidualAPI    float64        // gravity of the DL's residual oil at 60 °F, °API; 0 when not given (API is used)
 	SepGasGravity  float64        // separator gas gravity (air = 1); 0: compute from separator.csv
 	H2S, CO2, N2   float64        // mole percent in the reservoir gas; 0 when not given
 	StdPressure    float64        // standard pressure, psia (default 14.696)
