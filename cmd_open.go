@@ -46,7 +46,7 @@ func runWorkbench(name string, load func() (*lab.Report, error), tuning string, 
 	noColor := os.Getenv("NO_COLOR") != ""
 	r := lipgloss.NewRenderer(stdout)
 	if noColor {
-		// NO_COLOR drops colour, not emphasis: keep bold and reverse video.
+		// NO_COLOR drops colour, not emphasis: keep bold and inverted (reverse) text.
 		r.SetColorProfile(termenv.ANSI)
 	}
 	err := tui.Run(tui.WithReport(name, load), tui.WithTuningFile(tuning, force),

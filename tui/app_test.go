@@ -462,7 +462,7 @@ func TestNoColor(t *testing.T) {
 		}
 	}
 	if out := st.Cursor.Render("x"); !strings.Contains(out, "\x1b[7m") {
-		t.Errorf("NO_COLOR: the cursor row is not in reverse video: %q", out)
+		t.Errorf("NO_COLOR: the cursor row is not drawn inverted (reverse): %q", out)
 	}
 }
 
