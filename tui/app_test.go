@@ -636,3 +636,23 @@ func TestFailedFitKeepsResult(t *testing.T) {
 		t.Errorf("the failure is not shown:\n%s", v)
 	}
 }
+
+// n jumps to the row a finding is marked beside, then on to the list.
+func TestNextFindingJumpsToMarkedRow(t *testing.T) {
+	path := filepath.Join("..", "testdata", "mutated", "wrong-bofb")
+	m := newTest(t, 100, 30, WithReport(path, func() (*lab.Report, error) { return lab.ReadFolder(path) }))
+	m = press(t, m, "1", "n")
+	first := strings.Split(m.report.view(m.c, 100, 26), "\n")[0]
+	if !strings.HasPrefix(first, "n1") {
+		t.Errorf("first n: top line %q, want the fluid-type note's row", first)
+	}
+	m = press(t, m, "n")
+	first = strings.Split(m.report.view(m.c, 100, 26), "\n")[0]
+	if !strings.HasPrefix(first, "W2") || !strings.Contains(first, "stock tank") {
+		t.Errorf("second n: top line %q, want the separator row marked W2", first)
+	}
+	m = press(t, m, "N")
+	if first = strings.Split(m.report.view(m.c, 100, 26), "\n")[0]; !strings.HasPrefix(first, "n1") {
+		t.Errorf("N: top line %q, want the note's row again", first)
+	}
+}

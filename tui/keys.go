@@ -68,8 +68,8 @@ type reportKeys struct {
 func newReportKeys() reportKeys {
 	return reportKeys{
 		scrollKeys:  newScrollKeys("line"),
-		NextFinding: key.NewBinding(key.WithKeys("n"), key.WithHelp("n", "next finding")),
-		PrevFinding: key.NewBinding(key.WithKeys("N"), key.WithHelp("N", "previous finding")),
+		NextFinding: key.NewBinding(key.WithKeys("n"), key.WithHelp("n", "next marked row or finding")),
+		PrevFinding: key.NewBinding(key.WithKeys("N"), key.WithHelp("N", "previous marked row or finding")),
 	}
 }
 

@@ -2,11 +2,13 @@ package tui
 
 import (
 	"fmt"
+	"regexp"
 	"strconv"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
 	tea "github.com/charmbracelet/bubbletea"
+	"github.com/charmbracelet/x/ansi"
 
 	"labmatch/lab"
 )
@@ -371,8 +373,18 @@ func reportContent(c *common, w int) ([]string, []int) {
 	for _, n := range s.ds0Notes() {
 		out = append(out, wrap("    note: "+n, w, "      ")...)
 	}
-	return out, anchors
+	// n and N step through the marked rows of the tables, then the list.
+	var marked []int
+	for i, l := range out {
+		if markedRow.MatchString(ansi.Strip(l)) {
+			marked = append(marked, i)
+		}
+	}
+	return out, append(marked, anchors...)
 }
+
+// markedRow is a line with a finding mark in its gutter ("W2", "E1,3", "n4").
+var markedRow = regexp.MustCompile(`^[EWn][0-9]`)
 
 // ds0Notes are the tuning dataset's notes (what was left out or assumed).
 func (s *session) ds0Notes() []string {
