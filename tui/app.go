@@ -288,6 +288,12 @@ func (m Model) onLoaded(msg loadedMsg) (tea.Model, tea.Cmd) {
 		m.active = screenReport
 		return m, nil
 	}
+	for _, f := range s.findings {
+		if f.Severity == lab.Error { // a report with errors opens where they are listed
+			m.active = screenReport
+			m.flash, m.flashErr = "the QC found errors in this report: fix them before trusting any tuning", true
+		}
+	}
 	for _, p := range fit.Properties {
 		if len(s.ds.Points[p]) > 0 {
 			s.props = append(s.props, p)

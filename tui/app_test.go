@@ -656,3 +656,23 @@ func TestNextFindingJumpsToMarkedRow(t *testing.T) {
 		t.Errorf("N: top line %q, want the note's row again", first)
 	}
 }
+
+// A report whose QC finds an error opens on the Report screen and says so.
+func TestQCErrorOpensReport(t *testing.T) {
+	path := filepath.Join("..", "testdata", "mutated", "swapped-digit")
+	r, err := lab.ReadFolder(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	hasError := false
+	for _, f := range lab.Check(r) {
+		hasError = hasError || f.Severity == lab.Error
+	}
+	if !hasError {
+		t.Fatal("the QC does not call the swapped digit an error (dl-rs-rising)")
+	}
+	m := newTest(t, 100, 30, WithReport(path, func() (*lab.Report, error) { return lab.ReadFolder(path) }))
+	if m.active != screenReport || !strings.Contains(m.View(), "the QC found errors") {
+		t.Errorf("opens on %v:\n%s", m.active, m.View())
+	}
+}
