@@ -417,6 +417,9 @@ func (m matchScreen) ladderLines(c *common, p fit.PropertyID, r fit.Result, w, h
 		}
 		out = append(out, line)
 	}
+	if c.s.depth[p] == "" && len(r.Ladder) > 0 {
+		out = append(out, st.Dim.Render(cell("  by LOO: the rung with the smallest leave-one-out error; a deeper one only when it is clearly lower", w)))
+	}
 	return out
 }
 
