@@ -32,6 +32,8 @@ type command struct {
 
 func commands() []command {
 	return []command{
+		{"open", "open the workbench on a report folder",
+			"labmatch open DIR [--tuning F]", runOpen},
 		{"samples", "list the built-in demo reports, or write them out as folders",
 			"labmatch samples [--out DIR] [--force]", runSamples},
 		{"check", "load a report folder and list its QC findings (exit 1 on any error)",
@@ -56,7 +58,7 @@ func main() {
 // run dispatches to a subcommand and returns the process exit code.
 func run(args []string, stdout, stderr io.Writer) int {
 	if len(args) == 0 {
-		return runDemo(stdout, stderr)
+		return runDefault(stdout, stderr)
 	}
 	switch args[0] {
 	case "-h", "--help", "-help", "help":
@@ -80,7 +82,8 @@ func usage(w io.Writer) {
 	fmt.Fprint(w, `labmatch: check a lab PVT report and tune black-oil correlations to it.
 
 Usage:
-  labmatch                 summary of the built-in demo report
+  labmatch                 the workbench on the built-in demo report (in a terminal;
+                           otherwise a summary of it)
 `)
 	for _, c := range commands() {
 		fmt.Fprintf(w, "  %-24s %s\n", c.name, c.summary)

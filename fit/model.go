@@ -271,7 +271,7 @@ func (m *Model) undersaturated(rs, pb, p float64) (State, []QuantityError) {
 	boOK := true
 	bob, err := m.boSat(pb, rs)
 	if err != nil {
-		errs, boOK = append(errs, QuantityError{"Bo", p, fmt.Errorf("Bo at Pb %.6g psia: %w", pb, err)}), false
+		errs, boOK = append(errs, QuantityError{"Bo", p, fmt.Errorf("at the bubble point %.6g psia: %w", pb, err)}), false
 	}
 	// The co tuning m·co + s was fitted to the report's oil. For an oil with other Rs (a branch
 	// of a table) the shift is carried as a fraction of the report's compressibility over the
