@@ -49,8 +49,9 @@ func runWorkbench(name string, load func() (*lab.Report, error), tuning string, 
 		// NO_COLOR drops colour, not emphasis: keep bold and inverted (reverse) text.
 		r.SetColorProfile(termenv.ANSI)
 	}
-	err := tui.Run(tui.WithReport(name, load), tui.WithTuningFile(tuning, force),
-		tui.WithRenderer(r, noColor), tui.WithTool("labmatch "+version))
+	opts := append([]tui.Option{tui.WithReport(name, load), tui.WithTuningFile(tuning, force),
+		tui.WithRenderer(r, noColor), tui.WithTool("labmatch " + version)}, workbenchExporters()...)
+	err := tui.Run(opts...)
 	if err != nil {
 		fmt.Fprintln(stderr, "labmatch:", err)
 		return exitData
