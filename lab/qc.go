@@ -757,7 +757,7 @@ func (q *qcReport) adjust() {
 		}
 	}
 	if len(rows) > 0 {
-		q.add(Note, qcDLFile, first, "adjust-rs-clamped", "usual at low pressure; these points carry little weight in Rs tuning",
+		q.add(Note, qcDLFile, first, "adjust-rs-clamped", "usual at low pressure; tuning leaves these stages out of Rs and Bo",
 			"separator-basis Rs = Rsfb − (Rsdb − Rsd)·Bofb/Bodb came out below zero and was set to zero at %s", strings.Join(rows, ", "))
 	}
 }
