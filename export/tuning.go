@@ -161,8 +161,16 @@ func (tf *TuningFile) upgrade() {
 	}
 	for p, pt := range tf.Properties {
 		pt.Depth = d
-		if fit.PropertyID(p) == fit.Z && !strings.Contains(pt.Family, "+") {
-			pt.Family = v1PseudoCritical(tf.Options.PseudoCritical) + "+" + pt.Family
+		if fit.PropertyID(p) == fit.Z {
+			if !strings.Contains(pt.Family, "+") {
+				pt.Family = v1PseudoCritical(tf.Options.PseudoCritical) + "+" + pt.Family
+			}
+			// Version 1 tuned Z as m·Z + s; version 2 as 1 + m·(Z − 1) + s', the same Z with
+			// s' = s + m − 1 (a shift, so the shape depth).
+			pt.Parameters.Shift += pt.Parameters.Multiplier - 1
+			if pt.Parameters.Shift != 0 {
+				pt.Depth = fit.DepthShape
+			}
 		}
 		tf.Properties[p] = pt
 	}

@@ -341,7 +341,7 @@ func (m *Model) withOilDensityAndGas(s *State, boOK bool, errs []QuantityError) 
 		return append(errs, QuantityError{"Z", p, err})
 	}
 	qz := m.Params[Z]
-	s.Z = qz.Multiplier*z + qz.Shift
+	s.Z = 1 + qz.Multiplier*(z-1) + qz.Shift
 	if s.Bg, err = correlations.GasFVFStd(s.Z, p, m.Oil.Temperature, m.StdPressure, m.StdTemp); err != nil {
 		errs = append(errs, QuantityError{"Bg", p, err})
 	}

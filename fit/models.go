@@ -255,8 +255,10 @@ func (m muUnderModel) basis(_ []float64, pts []Point, a, b []float64) error {
 	return nil
 }
 
-// zModel: Z_tuned = m·Z(Tpr, Ppr) + s, pseudo-criticals from the gas gravity of each point
-// with the Wichert–Aziz correction when the gas is sour.
+// zModel: Z_tuned = 1 + m·(Z(Tpr, Ppr) − 1) + s: the multiplier acts on the departure from the
+// ideal gas, so that without a shift the tuned Z still tends to 1 as the pressure falls (and
+// Bg to the ideal-gas value). Pseudo-criticals from the gas gravity of each point with the
+// Wichert–Aziz correction when the gas is sour.
 type zModel struct {
 	f        correlations.ZFamily
 	pc       correlations.PseudoCriticalFamily
@@ -272,7 +274,7 @@ func (m zModel) basis(_ []float64, pts []Point, a, b []float64) error {
 		if err != nil {
 			return err
 		}
-		a[i], b[i] = 0, v
+		a[i], b[i] = 1, v-1
 	}
 	return nil
 }
