@@ -5,6 +5,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"strings"
 	"text/tabwriter"
 
 	"labmatch/correlations"
@@ -61,24 +62,27 @@ type oilCalcOut struct {
 	PressurePsia     float64  `json:"pressure_psia"`
 	PbPsia           float64  `json:"pb_psia"`
 	RsScfSTB         float64  `json:"rs_scf_stb"`
-	BoRbSTB          float64  `json:"bo_rb_stb"`
-	CoPerPsi         float64  `json:"co_per_psi"`
-	OilDensity       float64  `json:"oil_density_lbm_ft3"`
+	BoRbSTB          *float64 `json:"bo_rb_stb"`
+	CoPerPsi         *float64 `json:"co_per_psi"`
+	OilDensity       *float64 `json:"oil_density_lbm_ft3"`
 	DeadOilViscosity float64  `json:"dead_oil_viscosity_cp"`
-	OilViscosity     float64  `json:"oil_viscosity_cp"`
+	OilViscosity     *float64 `json:"oil_viscosity_cp"`
 	Families         any      `json:"families"`
 	Warnings         []string `json:"warnings"`
+	// NotEvaluated gives, per quantity that could not be evaluated (null above), the reason.
+	NotEvaluated map[string]string `json:"not_evaluated"`
 }
 
 func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	fs := newFlagSet("calc oil", "labmatch calc oil --api A --gas-gravity G --temperature T --rsb R [--pressure P] [family flags] [--json]",
 		"Oil properties at one pressure from the published correlations (no tuning); without\n--pressure, at the bubble point (Pb, Bob, oil density and viscosity at Pb, dead-oil viscosity).\nValues take units: 2000psia, 150bar, 93degC, 107sm3/sm3; plain numbers are field units.")
 	api := fs.Float64("api", 0, "stock-tank oil gravity, `degAPI`")
-	gg := fs.Float64("gas-gravity", 0, "separator gas `gravity` (air = 1)")
+	gg := fs.Float64("gas-gravity", 0, "total surface gas `gravity` (air = 1; every stage, stock tank included), for "+gravityUsers(correlations.TotalGas))
 	temp := quantity(fs, "temperature", lab.Temperature, 0, "reservoir `temperature` (default unit degF)")
 	rsb := quantity(fs, "rsb", lab.GOR, 0, "solution GOR at the bubble point (default unit scf/STB)")
 	press := quantity(fs, "pressure", lab.Pressure, 0, "`pressure` to evaluate at (default unit psia; default: the bubble point)")
-	sepGG := fs.Float64("sep-gas-gravity", 0, "first-stage separator gas `gravity`, for Vasquez–Beggs and Kartoatmodjo–Schmidt (default: --gas-gravity)")
+	sepGG := fs.Float64("sep-gas-gravity", 0, "first-stage separator gas `gravity`, for "+gravityUsers(correlations.FirstStageGas)+" (default: --gas-gravity)")
+	stagesGG := fs.Float64("sep-stages-gas-gravity", 0, "separator gas `gravity` of every stage ahead of the stock tank, for "+gravityUsers(correlations.SeparatorGas)+" (default: --gas-gravity)")
 	sepP := quantity(fs, "sep-pressure", lab.Pressure, 114.7, "first-stage separator `pressure`, for the separator-gas normalisations (default 114.7 psia)")
 	sepT := quantity(fs, "sep-temperature", lab.Temperature, 60, "first-stage separator `temperature` (default 60 degF)")
 	fams := familyFlags(fs, fit.DefaultFamilies, fit.Pb, fit.Bo, fit.Co, fit.MuDead, fit.MuSat, fit.MuUnder)
@@ -98,7 +102,8 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 			return usageError(fs, stderr, "%s is required (and must be above zero)", req.name)
 		}
 	}
-	ds := &fit.Dataset{Oil: correlations.Oil{API: *api, GasGravity: *gg, Temperature: temp.v, SepPressure: sepP.v, SepTemperature: sepT.v, SepGasGravity: *sepGG},
+	ds := &fit.Dataset{Oil: correlations.Oil{API: *api, GasGravity: *gg, Temperature: temp.v, SepPressure: sepP.v, SepTemperature: sepT.v,
+		SepGasGravity: *sepGG, SepStagesGasGravity: *stagesGG, Rsb: rsb.v},
 		Rsb: rsb.v, StdPressure: 14.696, StdTemp: 60}
 	choice, err := fams.choice()
 	if err != nil {
@@ -112,14 +117,29 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	if !press.set {
 		press.v = m.Pb
 	}
-	st, err := m.At(press.v)
-	if err != nil {
-		fmt.Fprintln(stderr, "labmatch:", err)
-		return exitData
+	// A property whose correlation cannot be evaluated for this oil (Vasquez–Beggs co for a
+	// low-GOR oil) becomes a remark beside it; the others are still given.
+	st, qerrs := m.Evaluate(press.v)
+	failed := map[string]string{}
+	for _, qe := range qerrs {
+		switch qe.Quantity {
+		case "Bo", "co", "oil density", "oil viscosity":
+			failed[qe.Quantity] = qe.Err.Error()
+		case "Z", "Bg", "gas viscosity": // not shown by calc oil
+		default:
+			fmt.Fprintln(stderr, "labmatch:", qe)
+			return exitData
+		}
 	}
-	out := oilCalcOut{PressurePsia: press.v, PbPsia: m.Pb, RsScfSTB: st.Rs, BoRbSTB: st.Bo, CoPerPsi: st.Co,
-		OilDensity: st.OilDensity, DeadOilViscosity: m.MuDead, OilViscosity: st.OilViscosity,
-		Families: m.Families, Warnings: m.RangeWarnings()}
+	val := func(q string, v float64) *float64 {
+		if _, bad := failed[q]; bad {
+			return nil
+		}
+		return &v
+	}
+	out := oilCalcOut{PressurePsia: press.v, PbPsia: m.Pb, RsScfSTB: st.Rs, BoRbSTB: val("Bo", st.Bo), CoPerPsi: val("co", st.Co),
+		OilDensity: val("oil density", st.OilDensity), DeadOilViscosity: m.MuDead, OilViscosity: val("oil viscosity", st.OilViscosity),
+		Families: m.Families, Warnings: m.RangeWarnings(), NotEvaluated: failed}
 	if out.Warnings == nil {
 		out.Warnings = []string{}
 	}
@@ -136,19 +156,23 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 	}
 	fmt.Fprintf(tw, "oil at %.1f psia, %.1f degF (%s)\n", press.v, temp.v, state)
 	rows := []struct {
-		name, fam string
-		v         float64
-		unit      string
+		name, fam, q string
+		v            float64
+		unit         string
 	}{
-		{"bubble point Pb", m.Families[fit.Pb], m.Pb, "psia"},
-		{"solution GOR Rs", m.Families[fit.Pb], st.Rs, "scf/STB"},
-		{"oil FVF Bo", m.Families[fit.Bo], st.Bo, "rb/STB"},
-		{"compressibility co (at p)", coFamily(m, press.v), st.Co, "1/psi"},
-		{"oil density", "material balance", st.OilDensity, "lbm/ft3"},
-		{"dead-oil viscosity", m.Families[fit.MuDead], m.MuDead, "cP"},
-		{"oil viscosity", viscFamily(m, press.v), st.OilViscosity, "cP"},
+		{"bubble point Pb", m.Families[fit.Pb], "", m.Pb, "psia"},
+		{"solution GOR Rs", m.Families[fit.Pb], "", st.Rs, "scf/STB"},
+		{"oil FVF Bo", m.Families[fit.Bo], "Bo", st.Bo, "rb/STB"},
+		{"compressibility co (at p)", coFamily(m, press.v), "co", st.Co, "1/psi"},
+		{"oil density", "material balance", "oil density", st.OilDensity, "lbm/ft3"},
+		{"dead-oil viscosity", m.Families[fit.MuDead], "", m.MuDead, "cP"},
+		{"oil viscosity", viscFamily(m, press.v), "oil viscosity", st.OilViscosity, "cP"},
 	}
 	for _, r := range rows {
+		if why, bad := failed[r.q]; bad {
+			fmt.Fprintf(tw, "  %s\t-\t%s\t(%s) not evaluated: %s\n", r.name, r.unit, r.fam, why)
+			continue
+		}
 		fmt.Fprintf(tw, "  %s\t%.5g\t%s\t(%s)\n", r.name, r.v, r.unit, r.fam)
 	}
 	tw.Flush()
@@ -270,6 +294,18 @@ func knownID(p correlations.Property, id string) error {
 		}
 	}
 	return fmt.Errorf("unknown family %q (known: %s)", id, ids(p))
+}
+
+// gravityUsers lists the families (with their property) that take a kind of gas gravity, from
+// the catalog.
+func gravityUsers(k correlations.GravityKind) string {
+	var s []string
+	for _, e := range correlations.Catalog() {
+		if e.Gravity == k {
+			s = append(s, fmt.Sprintf("%s %s", e.Property, e.ID))
+		}
+	}
+	return strings.Join(s, ", ")
 }
 
 func printWarnings(w io.Writer, ws []string) {

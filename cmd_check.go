@@ -64,6 +64,10 @@ func printProcessing(w io.Writer, r *lab.Report) {
 		fmt.Fprintf(w, "saturation pressure implied by the CCE: %.0f psia (reported %.0f, %+.2f %%)\n", e.Psat, e.Reported, 100*(e.Psat/e.Reported-1))
 	}
 	if _, fit, err := lab.UndersaturatedCo(r.Fluid.Pb, r.CCE); err == nil {
-		fmt.Fprintf(w, "undersaturated co from the CCE: %.3g 1/psi at Pb, %.3g 1/psi at %.0f psia\n", fit.Co(r.Fluid.Pb), fit.Co(fit.Pmax), fit.Pmax)
+		note := ""
+		if !(fit.Co(r.Fluid.Pb) > 0) || !(fit.Co(fit.Pmax) > 0) {
+			note = " (not physical: see cce-co-negative below)"
+		}
+		fmt.Fprintf(w, "undersaturated co from the CCE: %.3g 1/psi at Pb, %.3g 1/psi at %.0f psia%s\n", fit.Co(r.Fluid.Pb), fit.Co(fit.Pmax), fit.Pmax, note)
 	}
 }

@@ -75,7 +75,7 @@ sample, property and family (row = the sample's line in FILE; values in field un
 	}
 	opts := fit.SurveyOptions{Folds: *folds, Seed: *seed, Refit: *refit, Properties: properties}
 	var prog *progressLine
-	if f, ok := stderr.(*os.File); ok && isTerminal(f) {
+	if isTerminal(stderr) {
 		prog = &progressLine{w: stderr, label: "survey"}
 		opts.Progress = prog.update
 	}
@@ -108,12 +108,6 @@ func loadSurvey(arg string) (*lab.Survey, error) {
 		return samples.LoadSurvey(id)
 	}
 	return lab.ReadSurvey(arg)
-}
-
-// isTerminal reports whether f is a character device (a terminal), not a file or a pipe.
-func isTerminal(f *os.File) bool {
-	fi, err := f.Stat()
-	return err == nil && fi.Mode()&os.ModeCharDevice != 0
 }
 
 // progressLine rewrites one status line on a terminal. A nil *progressLine does nothing.

@@ -35,7 +35,7 @@ func addOptionFlags(fs *flag.FlagSet) optionFlags {
 		mode:  fs.String("mode", "", "older name of --depth: multiplier, or multiplier+shift (= shape)"),
 		loss:  fs.String("loss", "relative", "objective: relative, absolute or huber"),
 		huber: fs.Float64("huber-delta", 0.02, "relative error where the huber loss turns linear"),
-		ppc:   fs.String("ppc", "sutton", "pseudo-critical family for Z, Bg and gas viscosity: sutton or standing"),
+		ppc:   fs.String("ppc", "", "force the pseudo-critical `method` of the z families: sutton or standing (default: both, ranked by the DL's Z)"),
 	}
 }
 
@@ -65,7 +65,7 @@ func (o optionFlags) options() (fit.Options, error) {
 	default:
 		return opts, fmt.Errorf("--loss %q: want relative, absolute or huber", *o.loss)
 	}
-	if *o.ppc != "sutton" && *o.ppc != "standing" {
+	if *o.ppc != "" && *o.ppc != "sutton" && *o.ppc != "standing" {
 		return opts, fmt.Errorf("--ppc %q: want sutton or standing", *o.ppc)
 	}
 	if !(*o.huber > 0 && *o.huber < 1) {
@@ -380,7 +380,9 @@ func printResult(w io.Writer, res fit.Result) {
 		}
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "  depth\tparameters\tAARE %\tmax |RE| %\tleave-one-out AARE %\t")
+	if len(res.Ladder) > 0 {
+		fmt.Fprintln(tw, "  depth\tparameters\tAARE %\tmax |RE| %\tleave-one-out AARE %\t")
+	}
 	for _, r := range res.Ladder {
 		mark := ""
 		if r.Chosen {

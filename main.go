@@ -32,6 +32,8 @@ type command struct {
 
 func commands() []command {
 	return []command{
+		{"open", "open the workbench on a report folder",
+			"labmatch open DIR [--tuning F]", runOpen},
 		{"samples", "list the built-in demo reports, or write them out as folders",
 			"labmatch samples [--out DIR] [--force]", runSamples},
 		{"check", "load a report folder and list its QC findings (exit 1 on any error)",
@@ -42,6 +44,10 @@ func commands() []command {
 			"labmatch rank DIR [--json]", runRank},
 		{"tune", "tune the chosen families to a report and print parameters and statistics",
 			"labmatch tune DIR [--pb ID ...] [--json] [--save F] [--tuning F]", runTune},
+		{"tables", "black-oil tables (CSV, or a simulator deck) from the tuned model",
+			"labmatch tables DIR|TUNING_FILE [--format csv|deck] [--units field|metric] [--out F]", runTables},
+		{"report", "a self-contained HTML report with SVG plots",
+			"labmatch report DIR [--tuning F] [--out F.html]", runReport},
 		{"survey", "rank and tune every family over a regional PVT database, with cross-validation", "labmatch survey FILE [--folds K] [--seed N] [--refit] [--json] [--out F.csv]", runSurvey},
 	}
 }
@@ -53,7 +59,7 @@ func main() {
 // run dispatches to a subcommand and returns the process exit code.
 func run(args []string, stdout, stderr io.Writer) int {
 	if len(args) == 0 {
-		return runDemo(stdout, stderr)
+		return runDefault(stdout, stderr)
 	}
 	switch args[0] {
 	case "-h", "--help", "-help", "help":
@@ -77,7 +83,8 @@ func usage(w io.Writer) {
 	fmt.Fprint(w, `labmatch: check a lab PVT report and tune black-oil correlations to it.
 
 Usage:
-  labmatch                 summary of the built-in demo report
+  labmatch                 the workbench on the built-in demo report (in a terminal;
+                           otherwise a summary of it)
 `)
 	for _, c := range commands() {
 		fmt.Fprintf(w, "  %-24s %s\n", c.name, c.summary)

@@ -15,6 +15,7 @@ func buildCatalog() []Entry {
 	all = append(all, oilEntries()...)
 	all = append(all, viscosityEntries()...)
 	all = append(all, gasEntries()...)
+	all = append(all, waterEntries()...)
 	return all
 }
 

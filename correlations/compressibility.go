@@ -30,7 +30,7 @@ func svmTerm(c *[3]float64, v float64) float64 { return c[0] + v*(c[1]+v*c[2]) }
 // svmAverage returns c̄o (1/psi) and dc̄o/dp (1/psi²) at p ≥ pb.
 func svmAverage(p, pb, rsb float64, o Oil) (cbar, dcbar float64) {
 	l := math.Log(p / pb)
-	z := svmTerm(&svmC[0], math.Log(o.API)) + svmTerm(&svmC[1], math.Log(o.GasGravity)) +
+	z := svmTerm(&svmC[0], math.Log(o.API)) + svmTerm(&svmC[1], math.Log(o.separatorGasGravity())) +
 		svmTerm(&svmC[2], math.Log(pb)) + svmTerm(&svmC[3], l) +
 		svmTerm(&svmC[4], math.Log(rsb)) + svmTerm(&svmC[5], math.Log(o.Temperature))
 	cbar = 1e-6 * math.Exp(2.434+0.475*z+0.048*z*z)

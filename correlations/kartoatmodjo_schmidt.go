@@ -35,7 +35,7 @@ func ksGasGravity(o Oil) (float64, error) {
 	return g, nil
 }
 
-// ksLogRsFactor returns ln K in Rs = K·p^(1/C4): K = C1 · γg100^C2 · 10^(C3·API/(T + 460)).
+// ksLogRsFactor returns ln K in Rs = K·p^(1/C4): K = C1 · γg100^C2 · 10^(C3·API/(T + 459.67)).
 // Working with ln K saves an exponential and a logarithm on the hot path.
 func ksLogRsFactor(o Oil, cf []float64) (lnK float64, c4 float64, err error) {
 	g, err := ksGasGravity(o)
@@ -48,12 +48,12 @@ func ksLogRsFactor(o Oil, cf []float64) (lnK float64, c4 float64, err error) {
 		c = ksHeavy
 		c.c4, c.c1 = cf[0], cf[2]
 	}
-	return math.Log(c.c1) + c.c2*math.Log(g) + math.Ln10*c.c3*o.API/(o.Temperature+460), c.c4, nil
+	return math.Log(c.c1) + c.c2*math.Log(g) + math.Ln10*c.c3*o.API/(o.Temperature+rankine), c.c4, nil
 }
 
 // KartoatmodjoSchmidtCoefficients are the constants of the Kartoatmodjo–Schmidt solution-gas
 // pair that a refit may change, both sets (the oil's API picks one): Rs = C1·γg100^C2·p^(1/C4)·
-// 10^(C3·API/(T + 460)).
+// 10^(C3·API/(T + 459.67)).
 var KartoatmodjoSchmidtCoefficients = []Coefficient{
 	{ID: "c4_heavy", Value: ksHeavy.c4, Role: "C4 = 0.9986, 1/C4 the exponent of p (API ≤ 30)"},
 	{ID: "c4_light", Value: ksLight.c4, Role: "C4 = 0.9143, 1/C4 the exponent of p (API > 30)"},
@@ -66,7 +66,7 @@ var ksPublished = [4]float64{ksHeavy.c4, ksLight.c4, ksHeavy.c1, ksLight.c1}
 // KartoatmodjoSchmidtSolutionGOR returns the solution GOR (scf/STB) at p psia, Kartoatmodjo
 // and Schmidt (1994), the published direction:
 //
-//	Rs = C1 · γg100^C2 · p^(1/C4) · 10^(C3·API/(T + 460)),
+//	Rs = C1 · γg100^C2 · p^(1/C4) · 10^(C3·API/(T + 459.67)),
 //
 // C1..C4 = 0.05958, 0.7972, 13.1405, 0.9986 for API ≤ 30 and 0.03150, 0.7587, 11.2895,
 // 0.9143 above, T °F.
@@ -94,7 +94,7 @@ func KartoatmodjoSchmidtSolutionGORWith(p float64, o Oil, c []float64) (float64,
 }
 
 // KartoatmodjoSchmidtBubblePoint returns the bubble-point pressure (psia), the closed-form
-// inverse published with it: Pb = [Rsb / (C1 · γg100^C2 · 10^(C3·API/(T + 460)))]^C4.
+// inverse published with it: Pb = [Rsb / (C1 · γg100^C2 · 10^(C3·API/(T + 459.67)))]^C4.
 func KartoatmodjoSchmidtBubblePoint(rsb float64, o Oil) (float64, error) {
 	return KartoatmodjoSchmidtBubblePointWith(rsb, o, ksPublished[:])
 }

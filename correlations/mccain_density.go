@@ -38,9 +38,6 @@ func McCainSaturatedOilDensity(p, rs float64, o Oil) (float64, error) {
 	if err := checkGOR("Rs", rs); err != nil {
 		return 0, err
 	}
-	if o.Temperature < 60 {
-		return 0, inputError("temperature", o.Temperature, "≥ 60 °F for the McCain temperature correction")
-	}
 	g, gammaO := o.GasGravity, o.OilGravity()
 	rho := math.Max(52.8-0.01*rs, 20)
 	if rs == 0 {
@@ -67,9 +64,19 @@ func McCainSaturatedOilDensity(p, rs float64, o Oil) (float64, error) {
 	pk := p / 1000
 	rhoBS := rho + (0.167+16.181*pow10(-0.0425*rho))*pk -
 		0.01*(0.299+263*pow10(-0.0603*rho))*pk*pk
+	// The temperature correction is fitted above 60 °F; below it (a few real reservoirs are
+	// colder) it is continued as an odd function of T − 60, so the oil grows denser as it
+	// cools and the density stays continuous at 60 °F.
 	dt := o.Temperature - 60
-	dRhoT := (0.00302+1.505*pow(rhoBS, -0.951))*pow(dt, 0.938) -
-		(0.0216-0.0233*pow10(-0.0161*rhoBS))*pow(dt, 0.475)
+	adt, sign := math.Abs(dt), 1.0
+	if dt < 0 {
+		sign = -1
+	}
+	dRhoT := 0.0
+	if adt > 0 {
+		dRhoT = sign * ((0.00302+1.505*pow(rhoBS, -0.951))*pow(adt, 0.938) -
+			(0.0216-0.0233*pow10(-0.0161*rhoBS))*pow(adt, 0.475))
+	}
 	rhoO := rhoBS - dRhoT
 	if !(rhoO > 0) {
 		return 0, ErrNotFinite

@@ -5,8 +5,10 @@ import "math"
 // Input checks shared by the oil correlations. They return nil on the hot path and build a
 // formatted error only when an input is unusable.
 
-// rankine is the offset from °F to °R used where a paper works in absolute temperature.
-const rankine = 459.67
+// rankine is the offset from °F to °R (RankineOffset, 459.67), used everywhere a paper works in
+// absolute temperature, also where the paper itself writes T + 460 (Vasquez–Beggs,
+// Kartoatmodjo–Schmidt): one constant throughout, a difference of 0.07 % in T.
+const rankine = RankineOffset
 
 // Default first-stage separator conditions, used when Oil leaves them at zero: 100 psig
 // (114.7 psia), the reference pressure of Vasquez and Beggs (1980), and 60 °F.

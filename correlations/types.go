@@ -19,9 +19,14 @@ const (
 )
 
 // Oil describes the fluid that the oil correlations need besides pressure and Rs.
+//
+// The gas gravities: each family takes the one its paper defines (Entry.Gravity): the total
+// surface gas (GasGravity), the gas of the first separator stage (SepGasGravity), or the gas of
+// every separator stage ahead of the stock tank (SepStagesGasGravity). For a single flash to the
+// stock tank the separator is the stock tank itself.
 type Oil struct {
 	API            float64 // stock-tank oil gravity, °API
-	GasGravity     float64 // separator gas gravity, air = 1
+	GasGravity     float64 // total surface gas gravity (GOR-weighted over every stage, stock tank included), air = 1
 	Temperature    float64 // reservoir temperature, °F
 	SepPressure    float64 // first-stage separator pressure, psia; 0 means unknown (114.7 is used)
 	SepTemperature float64 // first-stage separator temperature, °F; 0 means unknown (60 is used)
@@ -29,6 +34,33 @@ type Oil struct {
 	// normalise the gas gravity to a 100 psig separator (Vasquez–Beggs, Kartoatmodjo–Schmidt)
 	// take; 0 means unknown (GasGravity is used).
 	SepGasGravity float64
+	// SepStagesGasGravity is the GOR-weighted gravity of the gas of every separator stage ahead
+	// of the stock tank (the "separator gas" of Valkó–McCain, Velarde and Spivey–Valkó–McCain);
+	// 0 means unknown (GasGravity is used).
+	SepStagesGasGravity float64
+	// Rsb is the solution GOR at the bubble point of the oil (scf/STB), for families whose Rs
+	// below Pb is drawn through the oil's own bubble point (valko-mccain, after Velarde); 0
+	// means unknown.
+	Rsb float64
+}
+
+// GravityKind names which surface gas gravity a family takes (see Oil).
+type GravityKind string
+
+// The gravity kinds.
+const (
+	TotalGas      GravityKind = "total surface gas"
+	FirstStageGas GravityKind = "first-stage separator gas"
+	SeparatorGas  GravityKind = "separator gas (every stage ahead of the stock tank)"
+)
+
+// separatorGasGravity returns the gravity of the separator gas without the stock tank, or
+// GasGravity when it is unknown.
+func (o Oil) separatorGasGravity() float64 {
+	if o.SepStagesGasGravity > 0 {
+		return o.SepStagesGasGravity
+	}
+	return o.GasGravity
 }
 
 // firstStageGasGravity returns the first-stage separator gas gravity, or GasGravity when it
@@ -61,6 +93,8 @@ type Entry struct {
 	Reference  string   // the published reference
 	Ranges     []Range  // input ranges of the original data set
 	Convention string   // input convention the correlation assumes, if any
+	// Gravity is the gas gravity the family takes; "" for families that take none.
+	Gravity GravityKind
 }
 
 // Coefficient is one published constant of a family that the refit depth may change. A

@@ -34,7 +34,7 @@ var vmX1, vmX2 = func() (float64, float64) {
 
 // vmRest returns z2 + z3 + z4, the part of z that does not depend on Rsb.
 func vmRest(o Oil) float64 {
-	return vmTerm(&vmC[1], o.API) + vmTerm(&vmC[2], o.GasGravity) + vmTerm(&vmC[3], o.Temperature)
+	return vmTerm(&vmC[1], o.API) + vmTerm(&vmC[2], o.separatorGasGravity()) + vmTerm(&vmC[3], o.Temperature)
 }
 
 func vmLnPb(z float64) float64 { return 7.475 + 0.713*z + 0.0075*z*z }
@@ -119,7 +119,7 @@ var (
 )
 
 func velTerm(k *[5]float64, o Oil, pbg float64) float64 {
-	return k[0] * pow(o.GasGravity, k[1]) * pow(o.API, k[2]) * pow(o.Temperature, k[3]) * pow(pbg, k[4])
+	return k[0] * pow(o.separatorGasGravity(), k[1]) * pow(o.API, k[2]) * pow(o.Temperature, k[3]) * pow(pbg, k[4])
 }
 
 // VelardeSolutionGOR returns the solution GOR (scf/STB) at p psia of an oil with bubble point
@@ -155,4 +155,121 @@ func VelardeSolutionGOR(p, pb, rsb float64, o Oil) (float64, error) {
 	a2 := velTerm(&velB, o, pbg)
 	a3 := velTerm(&velC, o, pbg)
 	return finite(rsb * (a1*pow(pr, a2) + (1-a1)*pow(pr, a3)))
+}
+
+// The valko-mccain solution-gas family pairs the published Valkó–McCain (2003) bubble point
+// with its published companion below Pb, the Velarde, Blasingame and McCain (1997) curve drawn
+// through that bubble point: for an oil holding o.Rsb at its bubble point pb₀ = Pb_VM(o.Rsb),
+//
+//	Rs(p) = Rsb·[a1·pr^a2 + (1 − a1)·pr^a3],  pr = (p − 14.7)/(pb₀ − 14.7),
+//
+// continued by the same formula above pb₀ (hypothetical oils with more gas, for tables), and
+// Pb(R) its numerical inverse (Brent), which is pb₀ at R = Rsb. The pair is an exact inverse
+// wherever the curve rises (a2, a3 > 0 and 0 < a1 < 1, which holds across the correlation's
+// data). Without the oil's Rsb (o.Rsb = 0) the pair falls back to the published Valkó–McCain Pb
+// and its numerical inverse (ValkoMcCainSolutionGOR, 16–38 % below Velarde at half the bubble
+// point): the survey of many oils uses Pb(Rsb) alone. Both correlations take the separator gas
+// gravity (every stage ahead of the stock tank), as published.
+
+// VelardeCoefficients are the constants of the valko-mccain pair that a refit may change: the
+// leading factors of Velarde's a1, a2 and a3.
+var VelardeCoefficients = []Coefficient{
+	{ID: "a2_factor", Value: velB[0], Role: "0.022339, the factor of Velarde's exponent a2"},
+	{ID: "a3_factor", Value: velC[0], Role: "0.725167, the factor of Velarde's exponent a3"},
+	{ID: "a1_factor", Value: velA[0], Role: "9.73e−7, the factor of Velarde's weight a1"},
+}
+
+var velPublished = [3]float64{velB[0], velC[0], velA[0]}
+
+// velardeCurve is Velarde's Rs through (pb, rsb) with the leading factors c (a2, a3, a1), not
+// limited to Rsb above pb.
+func velardeCurve(p, pb, rsb float64, o Oil, c []float64) float64 {
+	if p <= 14.7 {
+		return 0
+	}
+	pbg := pb - 14.7
+	pr := (p - 14.7) / pbg
+	ka, kb, kc := velA, velB, velC
+	kb[0], kc[0], ka[0] = c[0], c[1], c[2]
+	a1 := velTerm(&ka, o, pbg)
+	a2 := velTerm(&kb, o, pbg)
+	a3 := velTerm(&kc, o, pbg)
+	return rsb * (a1*pow(pr, a2) + (1-a1)*pow(pr, a3))
+}
+
+// ValkoMcCainPairSolutionGOR returns the solution GOR (scf/STB) at p psia of the valko-mccain
+// family (see above); o.Rsb is required.
+func ValkoMcCainPairSolutionGOR(p float64, o Oil) (float64, error) {
+	return ValkoMcCainPairSolutionGORWith(p, o, velPublished[:])
+}
+
+// ValkoMcCainPairSolutionGORWith is ValkoMcCainPairSolutionGOR with the coefficients c
+// (VelardeCoefficients order).
+func ValkoMcCainPairSolutionGORWith(p float64, o Oil, c []float64) (float64, error) {
+	if err := checkOilPositiveT(o); err != nil {
+		return 0, err
+	}
+	if err := checkPressure("p", p); err != nil {
+		return 0, err
+	}
+	if err := checkCoefficients(c, 3); err != nil {
+		return 0, err
+	}
+	if o.Rsb <= 0 {
+		return ValkoMcCainSolutionGOR(p, o)
+	}
+	pb0, err := ValkoMcCainBubblePoint(o.Rsb, o)
+	if err != nil {
+		return 0, err
+	}
+	if !(pb0 > 14.7) {
+		return 0, inputError("Rsb", o.Rsb, "a bubble point above 14.7 psia for Velarde's curve")
+	}
+	return finite(velardeCurve(p, pb0, o.Rsb, o, c))
+}
+
+// ValkoMcCainPairBubblePoint returns the bubble point (psia) of an oil holding rs scf/STB on
+// the valko-mccain family's curve (see above).
+func ValkoMcCainPairBubblePoint(rs float64, o Oil) (float64, error) {
+	return ValkoMcCainPairBubblePointWith(rs, o, velPublished[:])
+}
+
+// ValkoMcCainPairBubblePointWith is ValkoMcCainPairBubblePoint with the coefficients c
+// (VelardeCoefficients order), the inverse of ValkoMcCainPairSolutionGORWith.
+func ValkoMcCainPairBubblePointWith(rs float64, o Oil, c []float64) (float64, error) {
+	if err := checkCoefficients(c, 3); err != nil {
+		return 0, err
+	}
+	if o.Rsb <= 0 || rs == o.Rsb {
+		return ValkoMcCainBubblePoint(rs, o)
+	}
+	if err := checkOilPositiveT(o); err != nil {
+		return 0, err
+	}
+	if err := checkGOR("Rs", rs); err != nil {
+		return 0, err
+	}
+	if rs == 0 {
+		return 14.7, nil
+	}
+	pb0, err := ValkoMcCainBubblePoint(o.Rsb, o)
+	if err != nil {
+		return 0, err
+	}
+	if !(pb0 > 14.7) {
+		return 0, inputError("Rsb", o.Rsb, "a bubble point above 14.7 psia for Velarde's curve")
+	}
+	g := func(p float64) float64 { return velardeCurve(p, pb0, o.Rsb, o, c) - rs }
+	hi := pb0
+	for i := 0; g(hi) < 0; i++ {
+		if i > 60 || math.IsInf(hi, 0) {
+			return 0, inputError("Rs", rs, "a solution GOR that Velarde's curve reaches")
+		}
+		hi *= 2
+	}
+	p, err := brent(g, 14.7, hi, 1e-12*pb0, 200)
+	if err != nil {
+		return 0, err
+	}
+	return finite(p)
 }

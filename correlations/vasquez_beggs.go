@@ -18,7 +18,7 @@ import (
 
 // vbCoef holds one of the two coefficient sets (API ≤ 30, API > 30).
 type vbCoef struct {
-	c1, c2, c3 float64 // Rs = c1·γgs·p^c2·exp(c3·API/(T+460))
+	c1, c2, c3 float64 // Rs = c1·γgs·p^c2·exp(c3·API/(T+459.67)); the paper writes T + 460
 	b1, b2, b3 float64 // Bo = 1 + b1·Rs + b2·(T−60)·(API/γgs) + b3·Rs·(T−60)·(API/γgs)
 }
 
@@ -56,7 +56,7 @@ func vbGasGravity(o Oil) (float64, error) {
 // VasquezBeggsSolutionGOR returns the solution GOR (scf/STB) at p psia (at or below the bubble
 // point), Vasquez and Beggs (1980), the published direction:
 //
-//	Rs = C1·γgs·p^C2·exp[C3·API/(T + 460)],
+//	Rs = C1·γgs·p^C2·exp[C3·API/(T + 459.67)],
 //
 // C1, C2, C3 = 0.0362, 1.0937, 25.7240 for API ≤ 30 and 0.0178, 1.1870, 23.931 above, T °F.
 func VasquezBeggsSolutionGOR(p float64, o Oil) (float64, error) {
@@ -64,7 +64,7 @@ func VasquezBeggsSolutionGOR(p float64, o Oil) (float64, error) {
 }
 
 // VasquezBeggsCoefficients are the constants of the Vasquez–Beggs solution-gas pair that a
-// refit may change, both sets (the oil's API picks one): Rs = C1·γgs·p^C2·exp(C3·API/(T+460)).
+// refit may change, both sets (the oil's API picks one): Rs = C1·γgs·p^C2·exp(C3·API/(T+459.67)).
 var VasquezBeggsCoefficients = []Coefficient{
 	{ID: "c2_heavy", Value: vbHeavy.c2, Role: "C2 = 1.0937, the exponent of p (API ≤ 30)"},
 	{ID: "c2_light", Value: vbLight.c2, Role: "C2 = 1.1870, the exponent of p (API > 30)"},
@@ -101,13 +101,13 @@ func VasquezBeggsSolutionGORWith(p float64, o Oil, c []float64) (float64, error)
 		return 0, err
 	}
 	c1, c2, c3 := vbRsCoefs(o.API, c)
-	return finite(c1 * g * pow(p, c2) * math.Exp(c3*o.API/(o.Temperature+460)))
+	return finite(c1 * g * pow(p, c2) * math.Exp(c3*o.API/(o.Temperature+rankine)))
 }
 
 // VasquezBeggsBubblePoint returns the bubble-point pressure (psia) for rsb scf/STB, the
 // closed-form inverse of VasquezBeggsSolutionGOR:
 //
-//	Pb = [Rsb / (C1·γgs·exp(C3·API/(T + 460)))]^(1/C2).
+//	Pb = [Rsb / (C1·γgs·exp(C3·API/(T + 459.67)))]^(1/C2).
 func VasquezBeggsBubblePoint(rsb float64, o Oil) (float64, error) {
 	return VasquezBeggsBubblePointWith(rsb, o, vbPublished[:])
 }
@@ -129,7 +129,7 @@ func VasquezBeggsBubblePointWith(rsb float64, o Oil, c []float64) (float64, erro
 		return 0, err
 	}
 	c1, c2, c3 := vbRsCoefs(o.API, c)
-	return finite(pow(rsb/(c1*g*math.Exp(c3*o.API/(o.Temperature+460))), 1/c2))
+	return finite(pow(rsb/(c1*g*math.Exp(c3*o.API/(o.Temperature+rankine))), 1/c2))
 }
 
 // VasquezBeggsOilFVF returns the saturated oil formation volume factor (rb/STB), Vasquez and

@@ -8,6 +8,7 @@ import (
 	"os"
 	"slices"
 	"sort"
+	"strings"
 
 	"labmatch/fit"
 	"labmatch/lab"
@@ -30,6 +31,9 @@ type TuningFile struct {
 	Options       TuningOptions             `json:"options"`
 	Properties    map[string]PropertyTuning `json:"properties"`
 	Notes         []string                  `json:"notes,omitempty"`
+	// Fluid is the report's fluid description, so that tables can be made from the file
+	// alone; absent in files written before it was added.
+	Fluid *FluidRecord `json:"fluid,omitempty"`
 }
 
 // TuningOptions are the options the tuning ran with.
@@ -78,6 +82,10 @@ func NewTuningFile(tool string, r *lab.Report, results map[fit.PropertyID]fit.Re
 		tf.Properties[string(p)] = PropertyTuning{Family: res.Family, Depth: res.Depth, Parameters: res.Params, CoefficientIDs: res.CoefficientIDs,
 			AARELOO: res.LOO, Ladder: res.Ladder, NoFit: res.NoFit, ShiftUnit: res.ShiftUnit, CI95: res.CI95,
 			CIAssumed: res.CIAssumed, Published: res.Published, Tuned: res.Tuned, Excluded: ex, Flags: res.Flags, OutOfRange: res.OutOfRange}
+	}
+	if ds, err := fit.NewDataset(r); err == nil {
+		f := NewFluidRecord(ds, r)
+		tf.Fluid = &f
 	}
 	return tf
 }
@@ -153,6 +161,17 @@ func (tf *TuningFile) upgrade() {
 	}
 	for p, pt := range tf.Properties {
 		pt.Depth = d
+		if fit.PropertyID(p) == fit.Z {
+			if !strings.Contains(pt.Family, "+") {
+				pt.Family = v1PseudoCritical(tf.Options.PseudoCritical) + "+" + pt.Family
+			}
+			// Version 1 tuned Z as m·Z + s; version 2 as 1 + m·(Z − 1) + s', the same Z with
+			// s' = s + m − 1 (a shift, so the shape depth).
+			pt.Parameters.Shift += pt.Parameters.Multiplier - 1
+			if pt.Parameters.Shift != 0 {
+				pt.Depth = fit.DepthShape
+			}
+		}
 		tf.Properties[p] = pt
 	}
 	tf.Options.Mode, tf.Options.Depth = "", ""
@@ -183,6 +202,11 @@ func (tf TuningFile) validate() error {
 	default:
 		return fmt.Errorf("options: pseudo_critical %q, want sutton or standing", tf.Options.PseudoCritical)
 	}
+	if tf.Fluid != nil {
+		if err := tf.Fluid.validate(); err != nil {
+			return err
+		}
+	}
 	keys := make([]string, 0, len(tf.Properties))
 	for p := range tf.Properties {
 		keys = append(keys, p)
@@ -194,7 +218,11 @@ func (tf TuningFile) validate() error {
 		if len(fams) == 0 {
 			return fmt.Errorf("unknown property %q", p)
 		}
-		if !slices.Contains(fams, pt.Family) {
+		fam := pt.Family
+		if fit.PropertyID(p) == fit.Z && !strings.Contains(fam, "+") {
+			fam = v1PseudoCritical(tf.Options.PseudoCritical) + "+" + fam // a version 1 Z method id
+		}
+		if !slices.Contains(fams, fam) {
 			return fmt.Errorf("property %q: unknown family %q (known: %v)", p, pt.Family, fams)
 		}
 		if tf.FormatVersion > 1 && !validDepth(pt.Depth) {
@@ -235,4 +263,28 @@ func (tf TuningFile) validate() error {
 	return nil
 }
 
+// ErrNoFluid means a tuning file lacks the fluid record that tables need without the report.
+var ErrNoFluid = errors.New("export: the tuning file has no fluid record (written by an older labmatch); give the report folder with --tuning")
+
+// Model builds the tuned model from the tuning file alone, from its fluid record.
+func (tf TuningFile) Model() (*fit.Model, *fit.Dataset, error) {
+	if tf.Fluid == nil {
+		return nil, nil, ErrNoFluid
+	}
+	ds := tf.Fluid.Dataset(tf.Report)
+	m, err := fit.NewModel(ds, tf.Results(), tf.FitOptions())
+	if err != nil {
+		return nil, nil, fmt.Errorf("export: tuning file: %w", err)
+	}
+	return m, ds, nil
+}
+
 func validDepth(d fit.Depth) bool { return slices.Contains(fit.Depths, d) }
+
+// v1PseudoCritical is the pseudo-critical method a version 1 file's Z method ran with.
+func v1PseudoCritical(recorded string) string {
+	if recorded == "" {
+		return "sutton"
+	}
+	return recorded
+}

@@ -131,3 +131,29 @@ func TestLoadTuningRefusesBadFiles(t *testing.T) {
 		}
 	}
 }
+
+// A version 1 file (one mode for every property) loads as version 2: multiplier+shift becomes
+// the shape depth, parameters as recorded.
+func TestLoadTuningVersion1(t *testing.T) {
+	v1 := `{"format_version": 1, "options": {"mode": "multiplier+shift", "loss": "relative"},
+	 "properties": {"bo": {"family": "standing", "parameters": {"multiplier": 0.96, "shift": 0.01}},
+	                "pb": {"family": "standing", "parameters": {"multiplier": 1.05, "shift": 12}}}}`
+	p := filepath.Join(t.TempDir(), "v1.json")
+	if err := os.WriteFile(p, []byte(v1), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	tf, err := LoadTuning(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if tf.FormatVersion != FormatVersion || tf.Options.Mode != "" {
+		t.Errorf("upgraded file: version %d, mode %q", tf.FormatVersion, tf.Options.Mode)
+	}
+	res := tf.Results()
+	if res[fit.Bo].Depth != fit.DepthShape || res[fit.Pb].Depth != fit.DepthShape {
+		t.Errorf("depths %s, %s; want shape", res[fit.Bo].Depth, res[fit.Pb].Depth)
+	}
+	if q := res[fit.Pb].Params; q.Multiplier != 1.05 || q.Shift != 12 {
+		t.Errorf("pb parameters %+v, want the recorded ones", q)
+	}
+}

@@ -58,11 +58,15 @@ func NewDataset(r *lab.Report) (*Dataset, error) {
 	if ds.StdTemp == 0 {
 		ds.StdTemp = 60
 	}
-	if len(t.Stages) > 1 { // a first stage ahead of the stock tank
+	// The first stage's conditions and gas for the families that normalise the separator gas
+	// (Vasquez–Beggs, Kartoatmodjo–Schmidt): for a single flash the separator is the stock tank.
+	if len(t.Stages) > 0 {
 		ds.Oil.SepPressure = t.Stages[0].Pressure
 		ds.Oil.SepTemperature = t.Stages[0].Temperature
 		ds.Oil.SepGasGravity = t.Stages[0].GasGravity
+		ds.Oil.SepStagesGasGravity = t.SeparatorGasGravity()
 	}
+	ds.Oil.Rsb = ds.Rsb
 
 	// pb: the report's Pb at Rsb, then the adjusted Rs below Pb.
 	ds.add(Pb, Point{Quantity: "Pb", Unit: "psia", Pressure: ds.Pb, Lab: ds.Pb, Rs: ds.Rsb, Source: "fluid.csv", Line: r.Fluid.Line["saturation pressure"]})

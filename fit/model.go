@@ -11,7 +11,7 @@ import (
 // model can still evaluate it (published, untuned; Model.Untuned lists them).
 var DefaultFamilies = Choice{
 	Pb: "standing", Bo: "standing", Co: "vasquez-beggs", MuDead: "beggs-robinson",
-	MuSat: "beggs-robinson", MuUnder: "vasquez-beggs", Z: "dak",
+	MuSat: "beggs-robinson", MuUnder: "vasquez-beggs", Z: "sutton+dak",
 }
 
 // coBelowFamily gives the oil compressibility below Pb (published, untuned).
@@ -72,7 +72,11 @@ func NewModel(ds *Dataset, results map[PropertyID]Result, opts Options) (*Model,
 	if err != nil {
 		return nil, err
 	}
-	m.sg = pbModel{sg, m.Oil, m.Rsb}
+	oil := m.Oil
+	if oil.Rsb == 0 {
+		oil.Rsb = m.Rsb
+	}
+	m.sg = pbModel{sg, oil, m.Rsb}
 	bo, err := correlations.OilFVFByID(m.Families[Bo])
 	if err != nil {
 		return nil, err
@@ -160,18 +164,42 @@ func (m *Model) muSat(rs float64) (float64, error) {
 	return q.Multiplier*v + q.Shift, err
 }
 
+// QuantityError says which quantity of a state could not be evaluated, and why.
+type QuantityError struct {
+	Quantity string // "Rs", "Bo", "co", "oil density", "oil viscosity", "Z", "Bg", "gas viscosity"
+	Pressure float64
+	Err      error
+}
+
+func (e QuantityError) Error() string {
+	return fmt.Sprintf("fit: model: %s at %.6g psia: %v", e.Quantity, e.Pressure, e.Err)
+}
+
+func (e QuantityError) Unwrap() error { return e.Err }
+
 // At evaluates every property at pressure p (psia) and reservoir temperature for the report's
-// oil: saturated at and below the tuned Pb, undersaturated above it.
+// oil: saturated at and below the tuned Pb, undersaturated above it. The error is the first
+// quantity that could not be evaluated; Evaluate gives the rest as well.
 func (m *Model) At(p float64) (State, error) {
+	s, errs := m.Evaluate(p)
+	if len(errs) > 0 {
+		return s, errs[0]
+	}
+	return s, nil
+}
+
+// Evaluate is At that evaluates every quantity it can: a quantity that fails (a correlation
+// outside its domain for this oil) is left zero and listed, the others are still given.
+func (m *Model) Evaluate(p float64) (State, []QuantityError) {
 	if !(p > 0) || math.IsInf(p, 0) {
-		return State{}, fmt.Errorf("fit: model: pressure %g psia, want > 0", p)
+		return State{Pressure: p}, []QuantityError{{"pressure", p, fmt.Errorf("want > 0 psia")}}
 	}
 	if p > m.Pb {
-		return m.Undersaturated(m.Rsb, p)
+		return m.undersaturated(m.Rsb, m.Pb, p)
 	}
 	rs, err := m.Rs(p)
 	if err != nil {
-		return State{Pressure: p}, fmt.Errorf("fit: model: Rs at %g psia: %w", p, err)
+		return State{Pressure: p}, []QuantityError{{"Rs", p, err}}
 	}
 	return m.saturated(p, rs)
 }
@@ -186,17 +214,26 @@ func (m *Model) Saturated(rs float64) (State, error) {
 	if !(pb > 0) {
 		return State{}, fmt.Errorf("fit: model: bubble point %g psia at Rs %g scf/STB, want > 0", pb, rs)
 	}
-	return m.saturated(pb, rs)
+	return first(m.saturated(pb, rs))
 }
 
-func (m *Model) saturated(p, rs float64) (State, error) {
+func first(s State, errs []QuantityError) (State, error) {
+	if len(errs) > 0 {
+		return s, errs[0]
+	}
+	return s, nil
+}
+
+func (m *Model) saturated(p, rs float64) (State, []QuantityError) {
 	s := State{Pressure: p, Rs: rs}
+	var errs []QuantityError
 	var err error
+	boOK := true
 	if s.Bo, err = m.boSat(p, rs); err != nil {
-		return s, fmt.Errorf("fit: model: Bo at %g psia: %w", p, err)
+		errs, boOK = append(errs, QuantityError{"Bo", p, err}), false
 	}
 	if s.OilViscosity, err = m.muSat(rs); err != nil {
-		return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
+		errs = append(errs, QuantityError{"oil viscosity", p, err})
 	}
 	if m.coLow != nil {
 		pb, rsb := m.Pb, m.Rsb
@@ -207,7 +244,7 @@ func (m *Model) saturated(p, rs float64) (State, error) {
 			s.Co = 0 // the below-Pb compressibility is informative only
 		}
 	}
-	return m.withOilDensityAndGas(s)
+	return s, m.withOilDensityAndGas(&s, boOK, errs)
 }
 
 // Undersaturated evaluates every property of an oil holding rs scf/STB at a pressure p above
@@ -225,60 +262,93 @@ func (m *Model) Undersaturated(rs, p float64) (State, error) {
 	if p < pb {
 		return State{}, fmt.Errorf("fit: model: %g psia is below the bubble point %.6g psia of an oil with Rs %g scf/STB", p, pb, rs)
 	}
-	s := State{Pressure: p, Rs: rs}
-	bob, err := m.boSat(pb, rs)
-	if err != nil {
-		return s, fmt.Errorf("fit: model: Bo at Pb %g psia: %w", pb, err)
-	}
-	mub, err := m.muSat(rs)
-	if err != nil {
-		return s, fmt.Errorf("fit: model: oil viscosity at Pb %g psia: %w", pb, err)
-	}
-	qc := m.Params[Co]
-	rv, err := m.co.RelativeVolume(p, pb, rs, m.Oil)
-	if err != nil || rv <= 0 {
-		return s, fmt.Errorf("fit: model: relative volume at %g psia: %v", p, err)
-	}
-	s.Bo = bob * math.Exp(qc.Multiplier*math.Log(rv)-qc.Shift*(p-pb))
-	co, err := m.co.Co(p, pb, rs, m.Oil)
-	if err != nil {
-		return s, fmt.Errorf("fit: model: co at %g psia: %w", p, err)
-	}
-	s.Co = qc.Multiplier*co + qc.Shift
-	mu, err := m.under.Viscosity(p, pb, mub, m.Oil)
-	if err != nil {
-		return s, fmt.Errorf("fit: model: oil viscosity at %g psia: %w", p, err)
-	}
-	mu0, err := m.under.Viscosity(pb, pb, mub, m.Oil)
-	if err != nil {
-		return s, fmt.Errorf("fit: model: oil viscosity at Pb: %w", err)
-	}
-	qu := m.Params[MuUnder]
-	s.OilViscosity = mub + qu.Multiplier*(mu-mu0) + qu.Shift
-	return m.withOilDensityAndGas(s)
+	return first(m.undersaturated(rs, pb, p))
 }
 
-// withOilDensityAndGas completes a state with the oil density and the gas properties at its
-// pressure.
-func (m *Model) withOilDensityAndGas(s State) (State, error) {
+func (m *Model) undersaturated(rs, pb, p float64) (State, []QuantityError) {
+	s := State{Pressure: p, Rs: rs}
+	var errs []QuantityError
+	boOK := true
+	bob, err := m.boSat(pb, rs)
+	if err != nil {
+		errs, boOK = append(errs, QuantityError{"Bo", p, fmt.Errorf("at the bubble point %.6g psia: %w", pb, err)}), false
+	}
+	// The co tuning m·co + s was fitted to the report's oil. For an oil with other Rs (a branch
+	// of a table) the shift is carried as a fraction of the report's compressibility over the
+	// same span above its bubble point: co_tuned = co·(m + s/co_ref), which is the tuned
+	// correlation for the report's oil and never turns a small compressibility negative.
+	qc := m.Params[Co]
+	dp := p - pb
+	avgFactor, instFactor := qc.Multiplier, qc.Multiplier
+	if qc.Shift != 0 {
+		if dp > 0 {
+			rvRef, err := m.co.RelativeVolume(m.Pb+dp, m.Pb, m.Rsb, m.Oil)
+			if err != nil || !(rvRef > 0 && rvRef < 1) {
+				errs = append(errs, QuantityError{"co", p, fmt.Errorf("the report's relative volume %g above Pb: %v", rvRef, err)})
+			} else {
+				avgFactor += qc.Shift / (-math.Log(rvRef) / dp)
+			}
+		}
+		if coRef, err := m.co.Co(m.Pb+dp, m.Pb, m.Rsb, m.Oil); err == nil && coRef > 0 {
+			instFactor += qc.Shift / coRef
+		} else {
+			errs = append(errs, QuantityError{"co", p, fmt.Errorf("the report's compressibility above Pb: %v", err)})
+		}
+	}
+	if boOK {
+		rv, err := m.co.RelativeVolume(p, pb, rs, m.Oil)
+		switch {
+		case err != nil:
+			errs, boOK = append(errs, QuantityError{"Bo", p, fmt.Errorf("relative volume: %w", err)}), false
+		case !(rv > 0):
+			errs, boOK = append(errs, QuantityError{"Bo", p, fmt.Errorf("relative volume %g, want > 0", rv)}), false
+		default:
+			s.Bo = bob * math.Exp(avgFactor*math.Log(rv))
+		}
+	}
+	if co, err := m.co.Co(p, pb, rs, m.Oil); err != nil {
+		errs = append(errs, QuantityError{"co", p, err})
+	} else {
+		s.Co = instFactor * co
+	}
+	if mub, err := m.muSat(rs); err != nil {
+		errs = append(errs, QuantityError{"oil viscosity", p, fmt.Errorf("viscosity at Pb %.6g psia: %w", pb, err)})
+	} else if mu, err := m.under.Viscosity(p, pb, mub, m.Oil); err != nil {
+		errs = append(errs, QuantityError{"oil viscosity", p, err})
+	} else if mu0, err := m.under.Viscosity(pb, pb, mub, m.Oil); err != nil {
+		errs = append(errs, QuantityError{"oil viscosity", p, fmt.Errorf("at Pb: %w", err)})
+	} else {
+		qu := m.Params[MuUnder]
+		s.OilViscosity = mub + qu.Multiplier*(mu-mu0) + qu.Shift
+	}
+	return s, m.withOilDensityAndGas(&s, boOK, errs)
+}
+
+// withOilDensityAndGas completes a state with the oil density (when Bo is known) and the gas
+// properties at its pressure, adding what fails to errs.
+func (m *Model) withOilDensityAndGas(s *State, boOK bool, errs []QuantityError) []QuantityError {
 	var err error
 	p := s.Pressure
-	if s.OilDensity, err = correlations.OilDensity(s.Rs, s.Bo, m.Oil); err != nil {
-		return s, fmt.Errorf("fit: model: oil density at %g psia: %w", p, err)
+	if boOK {
+		if s.OilDensity, err = correlations.OilDensity(s.Rs, s.Bo, m.Oil); err != nil {
+			errs = append(errs, QuantityError{"oil density", p, err})
+		}
+	} else {
+		errs = append(errs, QuantityError{"oil density", p, fmt.Errorf("needs Bo")})
 	}
 	z, err := m.z.z(p, m.Oil.GasGravity)
 	if err != nil {
-		return s, fmt.Errorf("fit: model: Z at %g psia: %w", p, err)
+		return append(errs, QuantityError{"Z", p, err})
 	}
 	qz := m.Params[Z]
-	s.Z = qz.Multiplier*z + qz.Shift
+	s.Z = 1 + qz.Multiplier*(z-1) + qz.Shift
 	if s.Bg, err = correlations.GasFVFStd(s.Z, p, m.Oil.Temperature, m.StdPressure, m.StdTemp); err != nil {
-		return s, fmt.Errorf("fit: model: Bg at %g psia: %w", p, err)
+		errs = append(errs, QuantityError{"Bg", p, err})
 	}
 	if s.GasViscosity, err = correlations.LeeGonzalezEakin(m.Oil.Temperature, p, s.Z, m.Oil.GasGravity); err != nil {
-		return s, fmt.Errorf("fit: model: gas viscosity at %g psia: %w", p, err)
+		errs = append(errs, QuantityError{"gas viscosity", p, err})
 	}
-	return s, nil
+	return errs
 }
 
 // PublishedModel builds a model from published correlations only: the chosen family of each
@@ -301,7 +371,7 @@ func (m *Model) RangeWarnings() []string {
 	in := rangeInputs(m.Oil, m.Rsb, m.Pb)
 	var ws []string
 	for _, p := range Properties {
-		if e, err := correlations.Lookup(catalogProperty(p), m.Families[p]); err == nil {
+		if e, err := catalogEntry(p, m.Families[p]); err == nil {
 			for _, w := range e.Check(in) {
 				ws = append(ws, fmt.Sprintf("%s (%s): %s", p, m.Families[p], w))
 			}

@@ -34,7 +34,11 @@ func newModel(ds *Dataset, p PropertyID, family string, opts Options, muDead, mu
 	switch p {
 	case Pb:
 		f, err := correlations.SolutionGasByID(family)
-		return pbModel{f, ds.Oil, ds.Rsb}, err
+		oil := ds.Oil
+		if oil.Rsb == 0 {
+			oil.Rsb = ds.Rsb
+		}
+		return pbModel{f, oil, ds.Rsb}, err
 	case Bo:
 		f, err := correlations.OilFVFByID(family)
 		return boModel{f, ds.Oil}, err
@@ -51,11 +55,12 @@ func newModel(ds *Dataset, p PropertyID, family string, opts Options, muDead, mu
 		f, err := correlations.UnderViscosityByID(family)
 		return muUnderModel{f, ds.Oil, ds.Pb, muB}, err
 	case Z:
-		f, err := correlations.ZByID(family)
+		pcID, zID := splitZFamily(family, opts)
+		f, err := correlations.ZByID(zID)
 		if err != nil {
 			return nil, err
 		}
-		pc, err := correlations.PseudoCriticalByID(opts.pseudoCritical())
+		pc, err := correlations.PseudoCriticalByID(pcID)
 		return zModel{f, pc, ds.Oil.Temperature, ds.H2S, ds.CO2}, err
 	}
 	return nil, fmt.Errorf("fit: unknown property %q", p)
@@ -250,8 +255,10 @@ func (m muUnderModel) basis(_ []float64, pts []Point, a, b []float64) error {
 	return nil
 }
 
-// zModel: Z_tuned = m·Z(Tpr, Ppr) + s, pseudo-criticals from the gas gravity of each point
-// with the Wichert–Aziz correction when the gas is sour.
+// zModel: Z_tuned = 1 + m·(Z(Tpr, Ppr) − 1) + s: the multiplier acts on the departure from the
+// ideal gas, so that without a shift the tuned Z still tends to 1 as the pressure falls (and
+// Bg to the ideal-gas value). Pseudo-criticals from the gas gravity of each point with the
+// Wichert–Aziz correction when the gas is sour.
 type zModel struct {
 	f        correlations.ZFamily
 	pc       correlations.PseudoCriticalFamily
@@ -267,7 +274,7 @@ func (m zModel) basis(_ []float64, pts []Point, a, b []float64) error {
 		if err != nil {
 			return err
 		}
-		a[i], b[i] = 0, v
+		a[i], b[i] = 1, v-1
 	}
 	return nil
 }
@@ -283,5 +290,5 @@ func (m zModel) z(p, gg float64) (float64, error) {
 			return 0, err
 		}
 	}
-	return m.f.Z((m.tF+459.67)/tpc, p/ppc)
+	return m.f.Z((m.tF+correlations.RankineOffset)/tpc, p/ppc)
 }

@@ -85,6 +85,10 @@ func TestModelConsistency(t *testing.T) {
 		if math.Abs(below.Bo/above.Bo-1) > 1e-6 || math.Abs(below.OilViscosity/above.OilViscosity-1) > 1e-6 {
 			t.Errorf("%s: not continuous at Pb: %+v / %+v", s.ID, below, above)
 		}
+		// Ideal-gas limit (common practice): the tuned Z tends to 1 as the pressure falls.
+		if atm, err := m.At(14.7); err != nil || math.Abs(atm.Z-1) > 0.005 {
+			t.Errorf("%s: tuned Z at 14.7 psia %.4f (%v), want within 0.005 of 1", s.ID, atm.Z, err)
+		}
 		prev, err := m.At(100)
 		if err != nil {
 			t.Fatal(err)

@@ -19,7 +19,9 @@ const (
 	publishedBoAARE = 0.3
 )
 
-func TestPublishedReportTuning(t *testing.T) {
+// tunedPublished tunes the published report at the default depths and builds its model.
+func tunedPublished(t *testing.T) (*Dataset, map[PropertyID]Result, *Model) {
+	t.Helper()
 	r, err := lab.ReadFolder("../testdata/published/good-oil-well-4")
 	if err != nil {
 		t.Fatal(err)
@@ -36,6 +38,11 @@ func TestPublishedReportTuning(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	return ds, res, m
+}
+
+func TestPublishedReportTuning(t *testing.T) {
+	ds, res, m := tunedPublished(t)
 	if math.Abs(m.Pb/ds.Pb-1) > inverseTol {
 		t.Errorf("tuned Pb %.6g psia, report %.6g psia", m.Pb, ds.Pb)
 	}
@@ -65,6 +72,39 @@ func TestPublishedReportTuning(t *testing.T) {
 		}
 		if rr.LOO == nil {
 			t.Errorf("%s: the chosen rung %s has no leave-one-out error", p, rr.Depth)
+		}
+	}
+}
+
+// The tuned model of the published report gives undersaturated branches that a simulator
+// accepts (common practice, the rules a black-oil table obeys): for oils with less and more gas
+// than the report's, Bo falls and the viscosity rises along each branch, although the report's
+// compressibility was tuned with a shift.
+func TestPublishedReportBranches(t *testing.T) {
+	ds, res, m := tunedPublished(t)
+	if res[Co].Params.Shift == 0 {
+		t.Logf("co tuned without a shift (depth %s): the check still holds", res[Co].Depth)
+	}
+	for _, f := range []float64{0.1, 0.3, 0.6, 1, 1.2} {
+		rs := f * ds.Rsb
+		pb, err := m.BubblePoint(rs)
+		if err != nil {
+			t.Fatal(err)
+		}
+		prev, err := m.Undersaturated(rs, pb)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for p := pb + 250; p < pb+5000; p += 250 {
+			st, err := m.Undersaturated(rs, p)
+			if err != nil {
+				t.Fatalf("Rs %.0f at %.0f psia: %v", rs, p, err)
+			}
+			if !(st.Bo < prev.Bo) || !(st.OilViscosity > prev.OilViscosity) || !(st.Co > 0) {
+				t.Errorf("Rs %.0f: from %.0f to %.0f psia Bo %.5f → %.5f, μ %.4f → %.4f, co %.3g", rs, prev.Pressure, p, prev.Bo, st.Bo, prev.OilViscosity, st.OilViscosity, st.Co)
+				break
+			}
+			prev = st
 		}
 	}
 }

@@ -121,7 +121,7 @@ func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, s
 	if chosen.rung.Depth != DepthPublished {
 		res.NoFit = noFitRemark(prop, family, pr.pts, pr.free, chosen.vals)
 	}
-	if e, err := correlations.Lookup(catalogProperty(prop), family); err == nil {
+	if e, err := catalogEntry(prop, family); err == nil {
 		res.OutOfRange = e.Check(ds.rangeInputs())
 	}
 	return res, nil
@@ -279,7 +279,8 @@ func TuneAll(ds *Dataset, choice Choice, opts Options) (map[PropertyID]Result, e
 }
 
 // Apply evaluates recorded families and parameters (a loaded tuning file) on a dataset
-// without tuning: statistics, residuals and intervals at the recorded parameters.
+// without tuning: statistics, residuals and intervals at the recorded parameters, and the
+// recorded ladder and leave-one-out error (those of the tuning that made them).
 // Properties without lab data are absent from the result; recorded properties that the
 // dataset has data for but stored lacks are tuned afresh.
 func Apply(ds *Dataset, stored map[PropertyID]Result, opts Options) (map[PropertyID]Result, error) {
@@ -328,6 +329,10 @@ func runAll(ds *Dataset, choice Choice, fixed map[PropertyID]Result, opts Option
 		r, err := tuneWith(ds, p, fam, opts, dead, sat, fx, fd)
 		if err != nil {
 			return out, err
+		}
+		if st, ok := fixed[p]; ok && st.Ladder != nil {
+			// The ladder and leave-one-out error as recorded when the parameters were tuned.
+			r.Ladder, r.LOO = st.Ladder, st.LOO
 		}
 		if r.NoFit != "" && choice[p] == "" {
 			// The family is the best-ranked one: none follows the lab points.
@@ -383,7 +388,9 @@ type rankJob struct {
 // viscosity families are scored with the measured dead-oil viscosity and viscosity at Pb
 // (published fallbacks when the report has none), not with the tuned ones that TuneAll
 // chains, so that each family is judged on its own.
-func Rank(ds *Dataset, opts Options) Ranking { return rank(ds, opts, Families) }
+func Rank(ds *Dataset, opts Options) Ranking {
+	return rank(ds, opts, func(p PropertyID) []string { return familiesFor(p, opts) })
+}
 
 func rank(ds *Dataset, opts Options, families func(PropertyID) []string) Ranking {
 	rk := Ranking{}
@@ -460,7 +467,7 @@ func score(ds *Dataset, p PropertyID, family string, opts Options) RankEntry {
 	r, err := Tune(ds, p, family, opts)
 	if err != nil {
 		e.Failed = err.Error()
-		if ce, err := correlations.Lookup(catalogProperty(p), family); err == nil {
+		if ce, err := catalogEntry(p, family); err == nil {
 			e.OutOfRange = ce.Check(ds.rangeInputs())
 			e.InRange = len(e.OutOfRange) == 0
 		}

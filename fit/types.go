@@ -1,6 +1,10 @@
 package fit
 
-import "labmatch/correlations"
+import (
+	"strings"
+
+	"labmatch/correlations"
+)
 
 // PropertyID names a tuned property. The ids appear in files, flags and JSON.
 type PropertyID string
@@ -40,8 +44,54 @@ func catalogProperty(p PropertyID) correlations.Property {
 	return ""
 }
 
-// Families returns the catalog ids of the families that can describe a property.
-func Families(p PropertyID) []string { return correlations.IDs(catalogProperty(p)) }
+// Families returns the ids of the families that can describe a property. A z family is a
+// pseudo-critical method and a Z method, "sutton+dak", so that the DL's own Z values choose
+// both.
+func Families(p PropertyID) []string {
+	if p != Z {
+		return correlations.IDs(catalogProperty(p))
+	}
+	var ids []string
+	for _, pc := range correlations.IDs(correlations.PseudoCritical) {
+		for _, z := range correlations.IDs(correlations.GasZ) {
+			ids = append(ids, pc+"+"+z)
+		}
+	}
+	return ids
+}
+
+// familiesFor returns the families that rank and TuneAll consider under the options: a forced
+// pseudo-critical method keeps only its z families.
+func familiesFor(p PropertyID, o Options) []string {
+	fams := Families(p)
+	if p != Z || o.PseudoCritical == "" {
+		return fams
+	}
+	var out []string
+	for _, f := range fams {
+		if strings.HasPrefix(f, o.PseudoCritical+"+") {
+			out = append(out, f)
+		}
+	}
+	return out
+}
+
+// splitZFamily returns the pseudo-critical and Z methods of a z family; a plain Z method id
+// (version 1 tuning files) takes the pseudo-critical method of the options (default Sutton).
+func splitZFamily(family string, o Options) (pc, z string) {
+	if pc, z, ok := strings.Cut(family, "+"); ok {
+		return pc, z
+	}
+	return o.pseudoCritical(), family
+}
+
+// catalogEntry returns the catalog entry of a property's family (for z, of its Z method).
+func catalogEntry(p PropertyID, family string) (correlations.Entry, error) {
+	if p == Z {
+		_, family = splitZFamily(family, Options{})
+	}
+	return correlations.Lookup(catalogProperty(p), family)
+}
 
 // Loss selects how residuals are weighed in the objective.
 type Loss string
@@ -68,7 +118,8 @@ type Options struct {
 	Excluded map[PropertyID][]int
 	// Weights gives, per property, a weight per point (same length as the points); nil = 1.
 	Weights map[PropertyID][]float64
-	// PseudoCritical is the pseudo-critical family for Z, Bg and gas viscosity; "" = "sutton".
+	// PseudoCritical forces the pseudo-critical method of the z families ("sutton" or
+	// "standing"); "" ranks both. A plain Z method id (without "ppc+") takes it, default Sutton.
 	PseudoCritical string
 }
 
@@ -191,7 +242,7 @@ type Point struct {
 
 // Resolved returns the options with every default filled in, as the tuner uses them.
 func (o Options) Resolved() Options {
-	o.Loss, o.HuberDelta, o.PseudoCritical, o.Ridge = o.loss(), o.huberDelta(), o.pseudoCritical(), o.ridge()
+	o.Loss, o.HuberDelta, o.Ridge = o.loss(), o.huberDelta(), o.ridge()
 	return o
 }
 

@@ -154,7 +154,7 @@ const bblToFt3 = 5.614583
 // practice); the density ρg = p·28.96·γg/(Z·10.73·T) (Penn State PNG 520 molar mass of air,
 // gas constant from Lyons, Standard Handbook of Petroleum & Natural Gas Engineering).
 func (r *Report) gasAt(st DLStage, p *BasisPoint) {
-	tR := r.Fluid.Temperature + 459.67
+	tR := r.Fluid.Temperature + correlations.RankineOffset
 	p.Bg = st.Bg
 	if p.Bg == 0 && st.Z > 0 && st.Pressure > 0 {
 		psc, tsc := r.Fluid.StdPressure, r.Fluid.StdTemperature
@@ -164,7 +164,7 @@ func (r *Report) gasAt(st DLStage, p *BasisPoint) {
 		if tsc == 0 {
 			tsc = DefaultStdTemperature
 		}
-		p.Bg = psc * st.Z * tR / ((tsc + 459.67) * st.Pressure)
+		p.Bg = psc * st.Z * tR / ((tsc + correlations.RankineOffset) * st.Pressure)
 	}
 	if st.Z > 0 && st.GasGravity > 0 {
 		if rho, err := correlations.GasDensity(st.Pressure, r.Fluid.Temperature, st.Z, st.GasGravity); err == nil {

@@ -7,6 +7,8 @@ import (
 	"math"
 	"sort"
 	"strings"
+
+	"labmatch/correlations"
 )
 
 // Tolerances and thresholds of the QC checks. Each is a documented choice; the source or
@@ -45,12 +47,12 @@ const (
 
 // Constants of the trade used by the checks.
 const (
-	qcAtm          = 14.696   // psia, one standard atmosphere (common practice)
-	qcFt3PerBbl    = 5.614583 // ft³ per bbl, exact by definition (42 US gal)
-	qcWaterDensity = 62.37    // lbm/ft³ at 60 °F (common practice; 62.4 rounded)
-	qcAirMolarMass = 28.97    // lbm/lb-mol (AAPG Wiki, "Petroleum reservoir fluid properties")
-	qcGasConstant  = 10.7316  // psia·ft³/(lb-mol·°R) (common practice; 10.73 in Lyons, ed.)
-	qcRankine      = 459.67   // °F to °R
+	qcAtm          = 14.696                     // psia, one standard atmosphere (common practice)
+	qcFt3PerBbl    = 5.614583                   // ft³ per bbl, exact by definition (42 US gal)
+	qcWaterDensity = 62.37                      // lbm/ft³ at 60 °F (common practice; 62.4 rounded)
+	qcAirMolarMass = 28.97                      // lbm/lb-mol (AAPG Wiki, "Petroleum reservoir fluid properties")
+	qcGasConstant  = 10.7316                    // psia·ft³/(lb-mol·°R) (common practice; 10.73 in Lyons, ed.)
+	qcRankine      = correlations.RankineOffset // °F to °R
 )
 
 // Range limits of the plausibility checks (DESIGN: the ranges of the published black-oil
@@ -460,7 +462,11 @@ func (q *qcReport) dlDensity() {
 	if math.Abs(last.Rsd) > qcLastRsTol {
 		return
 	}
-	gammaO := 141.5 / (r.Fluid.API + 131.5)
+	api := r.Fluid.API
+	if r.Fluid.ResidualAPI > 0 { // the DL's own residual oil, lighter or heavier than the stock tank's
+		api = r.Fluid.ResidualAPI
+	}
+	gammaO := 141.5 / (api + 131.5)
 	mres := qcFt3PerBbl * qcWaterDensity * gammaO
 	rhoAir := qcAirMolarMass * q.psc / (qcGasConstant * (q.tsc + qcRankine))
 	check := func(st DLStage, mass float64) {
@@ -485,8 +491,10 @@ func (q *qcReport) dlDensity() {
 		}
 		lib := r.DL[q.stages[k-1]].Rsd - st.Rsd
 		if lib > 0 {
-			if st.GasGravity <= 0 {
+			if st.GasGravity <= 0 && known {
 				known = false
+				q.add(Note, qcDLFile, st.Line, "dl-density-unchecked", "give the gravity of the gas liberated at this stage",
+					"no gas gravity at %.6g psia: the oil densities at this and higher pressures are not checked by mass balance (no gravity is assumed)", st.Pressure)
 			}
 			gas += lib * rhoAir * st.GasGravity
 		}
@@ -648,6 +656,15 @@ func (q *qcReport) cce() {
 	if !(psat > 0) {
 		return
 	}
+	if _, cf, err := UndersaturatedCo(psat, r.CCE); err == nil {
+		for _, p := range []float64{psat, cf.Pmax} {
+			if co := cf.Co(p); !(co > 0) {
+				q.add(Warning, qcCCEFile, satLine, "cce-co-negative", "check the relative volumes above the saturation pressure for a mistyped digit",
+					"the compressibility fitted to the CCE above Psat is %.3g 1/psi at %.6g psia: an oil cannot expand as pressure rises", co, p)
+				break
+			}
+		}
+	}
 	fit, err := FitY(psat, r.CCE)
 	if err != nil {
 		if errors.Is(err, ErrYTooFewPoints) {
@@ -740,7 +757,7 @@ func (q *qcReport) adjust() {
 		}
 	}
 	if len(rows) > 0 {
-		q.add(Note, qcDLFile, first, "adjust-rs-clamped", "usual at low pressure; these points carry little weight in Rs tuning",
+		q.add(Note, qcDLFile, first, "adjust-rs-clamped", "usual at low pressure; tuning leaves these stages out of Rs and Bo",
 			"separator-basis Rs = Rsfb − (Rsdb − Rsd)·Bofb/Bodb came out below zero and was set to zero at %s", strings.Join(rows, ", "))
 	}
 }

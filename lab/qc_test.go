@@ -452,3 +452,34 @@ func TestFormatFindings(t *testing.T) {
 		t.Errorf("dl.csv heading repeated:\n%s", out)
 	}
 }
+
+// A CCE whose volumes above Psat level off (a mistyped last digit at the top) fits a
+// compressibility that turns negative: a warning, not a silent negative co (behaviour; the
+// volumes are invented).
+func TestCheckCCECompressibilityNegative(t *testing.T) {
+	r := inventedQCReport()
+	var sat CCEPoint
+	for _, c := range r.CCE {
+		if c.RelVolume == 1 {
+			sat = c
+		}
+	}
+	n := 0
+	for i := range r.CCE {
+		if x := r.CCE[i].Pressure - sat.Pressure; x > 0 {
+			// ln V rising again at the top: V = exp(−1e−5·x + 4e−9·x²).
+			r.CCE[i].RelVolume = math.Exp(-1e-5*x + 4e-9*x*x)
+			n++
+		}
+	}
+	if n < 2 {
+		t.Fatalf("%d CCE points above Psat", n)
+	}
+	fs := Check(r)
+	if !hasFinding(fs, "cce-co-negative", qcCCEFile, sat.Line) {
+		t.Errorf("no cce-co-negative warning:\n%s", dump(fs))
+	}
+	if hasFinding(Check(inventedQCReport()), "cce-co-negative", qcCCEFile, sat.Line) {
+		t.Error("cce-co-negative on the clean report")
+	}
+}

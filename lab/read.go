@@ -35,6 +35,7 @@ const (
 	KeyPb             = "saturation pressure"
 	KeyAPI            = "stock-tank API"
 	KeyResidualSG     = "residual oil gravity"
+	KeyResidualAPI    = "residual oil API"
 	KeySepGasGravity  = "separator gas gravity"
 	KeyH2S            = "H2S"
 	KeyCO2            = "CO2"
@@ -60,6 +61,7 @@ var fluidKeys = []colSpec{
 	{name: KeyPb, synonyms: []string{"bubble point", "bubble point pressure", "bubblepoint pressure", "Pb", "Psat", "saturation"}, q: Pressure, required: true, loOpen: true, hi: maxPressure},
 	{name: KeyAPI, synonyms: []string{"API", "stock tank API", "API gravity", "oil gravity", "stock tank oil gravity"}, q: APIGravity, loOpen: true, hi: 100},
 	{name: KeyResidualSG, synonyms: []string{"residual oil specific gravity", "residual oil SG"}, q: Dimensionless, lo: 0.5, hi: 1.07},
+	{name: KeyResidualAPI, synonyms: []string{"residual oil API gravity", "API of residual oil"}, q: APIGravity, loOpen: true, hi: 100},
 	{name: KeySepGasGravity, synonyms: []string{"gas gravity", "separator gas specific gravity", "gas specific gravity"}, q: Dimensionless, lo: 0.5, hi: 5},
 	{name: KeyH2S, synonyms: []string{"hydrogen sulfide", "hydrogen sulphide"}, q: MolePercent, hi: 100},
 	{name: KeyCO2, synonyms: []string{"carbon dioxide"}, q: MolePercent, hi: 100},
@@ -356,6 +358,9 @@ func (fr *folderReader) readFluid() (Fluid, error) {
 			fl.API = v
 		case KeyResidualSG:
 			residualSG = v
+			fl.ResidualAPI, _ = SGToAPI(v)
+		case KeyResidualAPI:
+			fl.ResidualAPI = v
 		case KeySepGasGravity:
 			fl.SepGasGravity = v
 		case KeyH2S:

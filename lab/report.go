@@ -19,6 +19,7 @@ type Fluid struct {
 	Temperature    float64        // reservoir temperature, °F
 	Pb             float64        // saturation (bubble-point) pressure reported, psia
 	API            float64        // stock-tank oil gravity, °API
+	ResidualAPI    float64        // gravity of the DL's residual oil at 60 °F, °API; 0 when not given (API is used)
 	SepGasGravity  float64        // separator gas gravity (air = 1); 0: compute from separator.csv
 	H2S, CO2, N2   float64        // mole percent in the reservoir gas; 0 when not given
 	StdPressure    float64        // standard pressure, psia (default 14.696)
@@ -66,6 +67,17 @@ func (t SeparatorTest) Rsfb() float64 {
 		s += st.GOR
 	}
 	return s
+}
+
+// SeparatorGasGravity returns the GOR-weighted gravity of the gas of the stages ahead of the
+// stock tank (the separator gas), or of the single stage of a test that flashes straight to
+// the stock tank; 0 when none reports one.
+func (t SeparatorTest) SeparatorGasGravity() float64 {
+	stages := t.Stages
+	if len(stages) > 1 {
+		stages = stages[:len(stages)-1]
+	}
+	return SeparatorTest{Stages: stages}.GasGravity()
 }
 
 // GasGravity returns the GOR-weighted gravity of the gas from every stage that reports one,

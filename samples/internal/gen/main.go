@@ -143,7 +143,7 @@ func (t *truth) z(p, gg float64) (float64, error) {
 		return 0, err
 	}
 	z, err := correlations.DranchukAbouKassem((t.s.Temperature+459.67)/tpc, p/ppc)
-	return t.s.MZ * z, err
+	return 1 + t.s.MZ*(z-1), err // the departure from the ideal gas, so Z → 1 as p → 0
 }
 
 // round rounds v to the given number of decimals, as a lab report prints it.

@@ -33,7 +33,7 @@ var Specs = []Spec{
 	{ID: "tr3-black", Well: "TR-3", Description: "black oil, Tamsin Ridge TR-3 (invented)",
 		API: 30.5, GasGravity: 0.82, Temperature: 195, Rsb: 620,
 		Pb: "standing", Bo: "standing", Co: "vasquez-beggs", MuDead: "beggs-robinson", MuSat: "beggs-robinson", MuUnder: "vasquez-beggs",
-		MPb: 0.73, MBo: 0.96, MCo: 1.10, MMuDead: 1.08, MMuSat: 0.95, MMuUnder: 1.05, MZ: 1.01, Noise: 0.004, Seed: 3,
+		MPb: 0.73, MBo: 0.96, MCo: 1.10, MMuDead: 1.08, MMuSat: 0.95, MMuUnder: 1.05, MZ: 1.06, Noise: 0.004, Seed: 3,
 		// A straighter Rs(p) with more gas left at low pressure than any published family
 		// (Standing's offset 1.4 → 2.6 and exponent 1.2048 → 1.12, the pressure scale 0.73
 		// bringing Pb near 3,000 psia), and a Bo that bends less (exponent 1.2 → 1.15, its
@@ -42,7 +42,7 @@ var Specs = []Spec{
 	{ID: "tr7-light", Well: "TR-7", Description: "light, volatile-leaning oil, Tamsin Ridge TR-7 (invented)",
 		API: 42, GasGravity: 0.88, Temperature: 240, Rsb: 1400, Metric: true,
 		Pb: "glaso", Bo: "glaso", Co: "petrosky-farshad", MuDead: "glaso", MuSat: "chew-connally", MuUnder: "beal",
-		MPb: 0.93, MBo: 1.04, MCo: 0.92, MMuDead: 1.10, MMuSat: 1.05, MMuUnder: 0.95, MZ: 0.99, Noise: 0.004, Seed: 7},
+		MPb: 0.93, MBo: 1.04, MCo: 0.92, MMuDead: 1.10, MMuSat: 1.05, MMuUnder: 0.95, MZ: 0.94, Noise: 0.004, Seed: 7},
 	{ID: "tr12-heavy", Well: "TR-12", Description: "heavy oil, Tamsin Ridge TR-12 (invented)",
 		API: 18, GasGravity: 0.68, Temperature: 150, Rsb: 150,
 		Pb: "vasquez-beggs", Bo: "vasquez-beggs", Co: "spivey-valko-mccain", MuDead: "egbogah-ng", MuSat: "kartoatmodjo-schmidt", MuUnder: "kartoatmodjo-schmidt",
