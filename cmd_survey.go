@@ -9,6 +9,7 @@ import (
 	"strconv"
 	"strings"
 
+	"labmatch/export"
 	"labmatch/fit"
 	"labmatch/lab"
 	"labmatch/samples"
@@ -18,7 +19,7 @@ import (
 const surveyShownExclusions = 15
 
 func runSurvey(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("survey", "labmatch survey FILE [--folds K] [--seed N] [--refit] [--properties LIST] [--json] [--out F.csv] [--force]",
+	fs := newFlagSet("survey", "labmatch survey FILE [--folds K] [--seed N] [--refit] [--properties LIST] [--json] [--out F.csv]\n                [--report F.html] [--force]",
 		`Rank and tune every correlation family over a regional PVT database: a CSV file with one
 sample per row (columns sample, temperature, API, gas gravity, Rsb, Pb, and optionally Bob,
 dead oil viscosity, oil viscosity at Pb, separator pressure and separator temperature; units
@@ -39,7 +40,8 @@ sample, property and family (row = the sample's line in FILE; values in field un
 	props := fs.String("properties", "pb,bo,mu_dead,mu_sat", "comma-separated `list` of properties to score")
 	asJSON := fs.Bool("json", false, "print JSON")
 	out := fs.String("out", "", "write the predictions table to `F.csv`")
-	force := fs.Bool("force", false, "overwrite the --out file if it exists")
+	report := fs.String("report", "", "write an HTML report with a lab-against-predicted plot per family to `F.html`")
+	force := fs.Bool("force", false, "overwrite the --out and --report files if they exist")
 	pos, code := parseFlags(fs, args, stdout, stderr)
 	if code >= 0 {
 		return code
@@ -62,9 +64,12 @@ sample, property and family (row = the sample's line in FILE; values in field un
 		}
 		properties = append(properties, fit.PropertyID(p))
 	}
-	if *out != "" && !*force {
-		if _, err := os.Lstat(*out); err == nil {
-			fmt.Fprintf(stderr, "labmatch survey: %s exists; use --force to overwrite\n", *out)
+	for _, f := range []string{*out, *report} {
+		if f == "" || *force {
+			continue
+		}
+		if _, err := os.Lstat(f); err == nil {
+			fmt.Fprintf(stderr, "labmatch survey: %s exists; use --force to overwrite\n", f)
 			return exitData
 		}
 	}
@@ -92,12 +97,22 @@ sample, property and family (row = the sample's line in FILE; values in field un
 			return exitData
 		}
 	}
+	if *report != "" {
+		in := export.SurveyReportInput{Tool: "labmatch " + version, Survey: sv, Result: res, Folds: *folds}
+		if err := export.SaveSurveyReport(*report, in, *force); err != nil {
+			fmt.Fprintln(stderr, err)
+			return exitData
+		}
+	}
 	if *asJSON {
 		return writeJSON(stdout, stderr, surveyJSON(sv, res, *folds))
 	}
 	printSurvey(stdout, sv, res, *folds, *refit)
 	if *out != "" {
 		fmt.Fprintf(stdout, "\nwrote the predictions to %s\n", *out)
+	}
+	if *report != "" {
+		fmt.Fprintf(stdout, "wrote the HTML report to %s\n", *report)
 	}
 	return exitOK
 }

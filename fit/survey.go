@@ -217,7 +217,7 @@ type surveyFamilyEval struct {
 // surveyOil is the oil description the correlations take.
 func surveyOil(s *lab.SurveySample) correlations.Oil {
 	return correlations.Oil{API: s.API, GasGravity: s.GasGravity, Temperature: s.Temperature,
-		SepPressure: s.SepPressure, SepTemperature: s.SepTemperature}
+		SepPressure: s.SepPressure, SepTemperature: s.SepTemperature, Rsb: s.Rsb}
 }
 
 // surveyFamilies returns the families of a property with their evaluators.
@@ -479,6 +479,11 @@ func RunSurvey(sv *lab.Survey, opts SurveyOptions) (*SurveyResult, error) {
 		var units []unit
 		for _, j := range jobs {
 			if !j.prepareRefit(sv, opts) {
+				if len(j.fam.coef) > 0 { // counted in the total: nothing to fit after all
+					for k := 0; k <= j.folds; k++ {
+						prog.step()
+					}
+				}
 				continue
 			}
 			j.folded = make([]surveyFit, j.folds+1)
@@ -784,7 +789,7 @@ func (j *surveyJob) prepareRefit(sv *lab.Survey, opts SurveyOptions) bool {
 	}
 	out.Refit.MultiplierFree = j.freeMult
 	if len(j.keep) == 0 {
-		out.RefitNote = "no declared coefficient changes the predictions"
+		out.RefitNote = "none of its declared coefficients changes these predictions"
 		out.Refit = nil
 		return false
 	}

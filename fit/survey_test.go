@@ -356,60 +356,53 @@ func TestSurveyPriorSpreadChoice(t *testing.T) {
 	}
 }
 
-// Samples where a family is out of its domain (cold, low-GOR oils below McCain's 60 °F
-// temperature correction; a light oil whose dead-oil viscosity is so low that
-// Kartoatmodjo–Schmidt's live-oil viscosity turns negative) are lost by that family alone, with
-// a counted reason; the other families and properties keep them.
+// Samples where a family is out of its domain are lost by that family alone, with a counted
+// reason; the other families and properties keep them. The database mixes low-GOR oils (Rsb
+// 10–40 scf/STB, some at 50 °F), which every family evaluates, with light gas-rich oils whose
+// dead-oil viscosity (0.05 cP) drives Kartoatmodjo–Schmidt's live-oil viscosity negative (within
+// the reader's bounds the only failure of a survey family found by a search of the input space).
 func TestSurveyOutOfDomain(t *testing.T) {
 	tr := defaultTruth
 	tr.lowRsb, tr.coldFraction, tr.lightDeadViscosityFrac = 0.3, 0.2, 0.1
 	sv := synthSurvey(t, 120, 5, 0.03, tr)
-	cold, light := 0, 0
-	for _, s := range sv.Samples {
-		if s.Temperature < 60 {
-			cold++
-		}
-		if s.DeadViscosity == 0.05 {
-			light++
-		}
-	}
-	if cold == 0 || light == 0 {
-		t.Fatalf("the draw has %d cold and %d light samples", cold, light)
-	}
 	res, err := RunSurvey(sv, SurveyOptions{Refit: true})
 	if err != nil {
 		t.Fatal(err)
 	}
+	lostBy := map[string]int{}
 	for _, sp := range res.Properties {
-		if sp.Samples != 120 {
-			t.Errorf("%s: %d samples, want all 120", sp.Property, sp.Samples)
+		if sp.Samples != len(sv.Samples) {
+			t.Errorf("%s: %d samples, want all %d", sp.Property, sp.Samples, len(sv.Samples))
 		}
-		for _, f := range sp.Families {
+		for _, fe := range surveyFamilies(sp.Property) {
+			want := 0
+			for i := range sv.Samples {
+				if _, err := fe.eval(&sv.Samples[i], nil); err != nil {
+					want++
+				}
+			}
+			f := familyResult(t, res, sp.Property, fe.id)
 			lost := 0
 			for _, l := range f.Lost {
 				lost += l.Count
-				if l.Reason == "" || len(l.Lines) == 0 || len(l.Lines) > surveyLossLines {
+				if l.Reason == "" || len(l.Lines) == 0 || len(l.Lines) > surveyLossLines || strings.ContainsAny(l.Reason[:1], "0123456789") {
 					t.Errorf("%s %s: loss %+v", sp.Property, f.Family, l)
 				}
 			}
-			want := 0
-			switch {
-			case sp.Property == Bo && f.Family == "mccain-density":
-				want = cold
-			case sp.Property == MuSat && f.Family == "kartoatmodjo-schmidt":
-				want = light
+			if lost != want || f.Points != len(sv.Samples)-want || f.CV.Points != f.Points || f.Tuned.Points != f.Points {
+				t.Errorf("%s %s: lost %d (%v), evaluated %d, CV over %d; the family fails on %d", sp.Property, f.Family, lost, f.Lost, f.Points, f.CV.Points, want)
 			}
-			if lost != want || f.Points != 120-want {
-				t.Errorf("%s %s: lost %d (%v), want %d", sp.Property, f.Family, lost, f.Lost, want)
-			}
-			if want > 0 && (f.CV.Points != f.Points || f.Tuned.Points != f.Points) {
-				t.Errorf("%s %s: statistics over %d and %d samples, want %d", sp.Property, f.Family, f.Tuned.Points, f.CV.Points, f.Points)
+			if want > 0 {
+				lostBy[string(sp.Property)+" "+fe.id] = want
 			}
 		}
 	}
-	mc := familyResult(t, res, Bo, "mccain-density")
-	if len(mc.Lost) == 0 || !strings.Contains(mc.Lost[0].Reason, "60 °F") || strings.ContainsAny(mc.Lost[0].Reason, "0123456789") && !strings.Contains(mc.Lost[0].Reason, "60 °F") {
-		t.Errorf("mccain-density loss reason %v", mc.Lost)
+	if len(lostBy) != 1 || lostBy["mu_sat kartoatmodjo-schmidt"] == 0 {
+		t.Errorf("losses %v: want the light oils in Kartoatmodjo–Schmidt's live-oil viscosity only", lostBy)
+	}
+	ks := familyResult(t, res, MuSat, "kartoatmodjo-schmidt")
+	if len(ks.Lost) != 1 || !strings.Contains(ks.Lost[0].Reason, "non-positive viscosity") {
+		t.Errorf("kartoatmodjo-schmidt losses %+v", ks.Lost)
 	}
 }
 
@@ -565,8 +558,9 @@ func TestSurveyRefitIdentifiable(t *testing.T) {
 	if gl.Refit == nil || gl.Refit.MultiplierFree || gl.Refit.Multiplier != 1 {
 		t.Errorf("glaso refit: %+v", gl.Refit)
 	}
-	for _, id := range []string{"lasater", "valko-mccain"} {
-		if f := familyResult(t, res, Pb, id); f.Refit != nil || !strings.Contains(f.RefitNote, "declares no coefficients") {
+	// Lasater declares no coefficients; Valkó–McCain's shape Rs below Pb, not Pb(Rsb).
+	for id, note := range map[string]string{"lasater": "declares no coefficients", "valko-mccain": "none of its declared coefficients"} {
+		if f := familyResult(t, res, Pb, id); f.Refit != nil || !strings.Contains(f.RefitNote, note) {
 			t.Errorf("%s: refit %+v, note %q", id, f.Refit, f.RefitNote)
 		}
 	}

@@ -22,6 +22,11 @@ import (
 //	TR-3 A,196,30.4,0.82,612,2415,1.352
 //	TR-7 B,212,41.8,0.78,1390,4120,
 //
+// The gas gravity is the surface gas gravity of the sample as the database gives it; the
+// families that take the first-stage separator gas (Vasquez–Beggs, Kartoatmodjo–Schmidt) or the
+// gas of the separator stages (Valkó–McCain) are given the same value, as when a report lacks
+// the separator test.
+//
 // The file's structure is checked as a report's is: an unknown column, a missing unit, a cell
 // that is not a number, a row with the wrong number of cells is a *ParseError naming the file,
 // line and column, and nothing is returned. A value outside physical bounds, or a row without
