@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/csv"
+	"encoding/json"
 	"fmt"
 	"io"
 	"os"
@@ -105,7 +106,11 @@ sample, property and family (row = the sample's line in FILE; values in field un
 		}
 	}
 	if *asJSON {
-		return writeJSON(stdout, stderr, surveyJSON(sv, res, *folds))
+		if err := writeSurveyJSON(stdout, surveyJSON(sv, res, *folds)); err != nil {
+			fmt.Fprintln(stderr, "labmatch:", err)
+			return exitData
+		}
+		return exitOK
 	}
 	printSurvey(stdout, sv, res, *folds, *refit)
 	if *out != "" {
@@ -431,12 +436,20 @@ type surveyPredictionJSON struct {
 	Property  string   `json:"property"`
 	Family    string   `json:"family"`
 	Unit      string   `json:"unit"`
-	Lab       float64  `json:"lab"`
-	Published float64  `json:"published"`
-	Tuned     float64  `json:"tuned"`
-	TunedCV   *float64 `json:"tuned_cv"`
-	Refit     *float64 `json:"refit,omitempty"`
-	RefitCV   *float64 `json:"refit_cv,omitempty"`
+	Lab       digits7  `json:"lab"`
+	Published digits7  `json:"published"`
+	Tuned     digits7  `json:"tuned"`
+	TunedCV   *digits7 `json:"tuned_cv"`
+	Refit     *digits7 `json:"refit,omitempty"`
+	RefitCV   *digits7 `json:"refit_cv,omitempty"`
+}
+
+// digits7 is a prediction written with 7 significant digits, more than any lab value carries:
+// the predictions of a large database are most of its JSON.
+type digits7 float64
+
+func (v digits7) MarshalJSON() ([]byte, error) {
+	return strconv.AppendFloat(nil, float64(v), 'g', 7, 64), nil
 }
 
 func ptr[T any](v T) *T { return &v }
@@ -473,12 +486,12 @@ func surveyJSON(sv *lab.Survey, res *fit.SurveyResult, folds int) map[string]any
 			for a, i := range f.Pred.Sample {
 				s := sv.Samples[i]
 				p := surveyPredictionJSON{Sample: s.ID, Row: s.Line, Property: string(sp.Property), Family: f.Family, Unit: sp.Unit,
-					Lab: f.Pred.Lab[a], Published: f.Pred.Published[a], Tuned: f.Pred.Tuned[a]}
+					Lab: digits7(f.Pred.Lab[a]), Published: digits7(f.Pred.Published[a]), Tuned: digits7(f.Pred.Tuned[a])}
 				if f.Pred.CV != nil {
-					p.TunedCV = ptr(f.Pred.CV[a])
+					p.TunedCV = ptr(digits7(f.Pred.CV[a]))
 				}
 				if f.Pred.Refit != nil {
-					p.Refit, p.RefitCV = ptr(f.Pred.Refit[a]), ptr(f.Pred.RefitCV[a])
+					p.Refit, p.RefitCV = ptr(digits7(f.Pred.Refit[a])), ptr(digits7(f.Pred.RefitCV[a]))
 				}
 				preds = append(preds, p)
 			}
@@ -490,6 +503,38 @@ func surveyJSON(sv *lab.Survey, res *fit.SurveyResult, folds int) map[string]any
 		"folds": folds, "seed": res.Seed, "prior_spread": res.PriorSpread,
 		"excluded": excluded, "properties": props, "property_info": info, "predictions": nonNilSlice(preds),
 	}
+}
+
+// writeSurveyJSON writes the survey JSON indented like the other commands', except that each
+// prediction takes one line: a large database has hundreds of thousands of them.
+func writeSurveyJSON(w io.Writer, doc map[string]any) error {
+	preds, _ := doc["predictions"].([]surveyPredictionJSON)
+	delete(doc, "predictions")
+	head, err := json.MarshalIndent(doc, "", "  ")
+	if err != nil {
+		return err
+	}
+	var b bytes.Buffer
+	b.Write(bytes.TrimSuffix(head, []byte("}")))
+	b.WriteString(",\n  \"predictions\": [")
+	enc := json.NewEncoder(&b)
+	enc.SetEscapeHTML(false)
+	for i, p := range preds {
+		if i > 0 {
+			b.WriteByte(',')
+		}
+		b.WriteString("\n    ")
+		if err := enc.Encode(p); err != nil {
+			return err
+		}
+		b.Truncate(b.Len() - 1) // Encode's newline
+	}
+	if len(preds) > 0 {
+		b.WriteString("\n  ")
+	}
+	b.WriteString("]\n}\n")
+	_, err = w.Write(b.Bytes())
+	return err
 }
 
 func nonNilSlice[T any](s []T) []T {

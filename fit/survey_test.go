@@ -646,3 +646,15 @@ func BenchmarkSurveyAll1k(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkSurveyRead10k: reading the 10,000-sample file alone, for the share of the total.
+func BenchmarkSurveyRead10k(b *testing.B) {
+	data := surveyCSV(synthSurvey(b, 10000, 1, 0.05, defaultTruth))
+	b.ReportAllocs()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		if _, err := lab.ParseSurvey("db.csv", data); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
