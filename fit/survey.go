@@ -32,12 +32,14 @@ import (
 // Each fold's multiplier comes from the database sums less the fold's: the cross-validation
 // costs no more than the fit, and the published predictions are computed once per family.
 //
-// With refit, each family's declared coefficients (correlations.Coefficient) are refitted as
-// well, started from and regularised towards the published values with the report tuner's
-// ridge λ·Σ(c/c₀ − 1)², bounded to ¼–4× of published by c = c₀·4^tanh(u), by gonum's Nelder–Mead
-// on u, the multiplier solved in closed form for each trial. The refit is cross-validated on the
-// same folds, each fold refitted from the published values, so its training and cross-validated
-// errors sit beside the multiplier's and show whether the refit generalises or overfits.
+// With refit, each family's declared coefficients (correlations.Coefficient) that the samples can
+// determine are refitted as well, started from and regularised towards the published values
+// with the report tuner's ridge form λ·Σ(c/c₀ − 1)² (λ scaled to the database's scatter, see
+// SurveyPriorSpread), bounded to ¼–4× of published by c = c₀·4^tanh(u), by Levenberg–Marquardt
+// on u; a multiplier, solved in closed form for each trial, joins them only when none of them
+// changes the level of the predictions. The refit is cross-validated on the same folds, each
+// fold refitted from the published values, so its training and cross-validated errors sit
+// beside the multiplier's and show whether the refit generalises or overfits.
 
 // SurveyProperties are the properties a survey scores, in order.
 var SurveyProperties = []PropertyID{Pb, Bo, MuDead, MuSat}
@@ -47,8 +49,9 @@ var SurveyProperties = []PropertyID{Pb, Bo, MuDead, MuSat}
 // samples. The penalty is then that of a prior belief that a coefficient stays within about τ
 // of its published value, weighed against the scatter the data actually show: the same λ would
 // mean a much weaker pull on a database scattered by 10 % than on a report measured to 0.3 %.
-// At a report's noise the report tuner's RidgeStrength (2e-4) is this form with τ ≈ 0.2
-// (σ = 0.3 %: λ = 9e-6/0.04 ≈ 2e-4). TestSurveyPriorSpreadChoice documents the choice of 0.2.
+// (At a report's 0.3 % the report tuner's RidgeStrength, 2e-4, is this form with τ ≈ 0.2; at a
+// database's 8 % it is τ ≈ 6, no pull at all.) TestSurveyPriorSpreadChoice documents the choice
+// of 0.1: the value on the 1–2–5 grid whose refits predict fresh oils best.
 const SurveyPriorSpread = 0.1
 
 // surveyLOOMax: with this many samples or fewer a property is cross-validated leave-one-out.
