@@ -314,6 +314,8 @@ func refitSummary(f fit.SurveyFamily) []string {
 	case rf.Overfits:
 		verdict = fmt.Sprintf("refit OVERFITS: it fits the database better (%.2f %% against %.2f %%) but predicts unseen samples worse (CV %.2f %% against %.2f %%)",
 			rf.Tuned.AARE, f.Tuned.AARE, rf.CV.AARE, f.CV.AARE)
+	case rf.Worse:
+		verdict = fmt.Sprintf("refit predicts unseen samples worse: CV %.2f %% against the multiplier's %.2f %%", rf.CV.AARE, f.CV.AARE)
 	default:
 		verdict = fmt.Sprintf("refit gives no clear gain on unseen samples: CV %.2f %% against the multiplier's %.2f %%", rf.CV.AARE, f.CV.AARE)
 	}
@@ -324,7 +326,7 @@ func refitSummary(f fit.SurveyFamily) []string {
 			held = append(held, fmt.Sprintf("%s %.5g (%s)", c.ID, c.Published, c.Held))
 			continue
 		}
-		cs = append(cs, fmt.Sprintf("%s %.5g → %.5g (folds %.5g–%.5g)", c.ID, c.Published, c.Refit, c.FoldMin, c.FoldMax))
+		cs = append(cs, fmt.Sprintf("%s %.5g → %.5g (folds %.5g to %.5g)", c.ID, c.Published, c.Refit, c.FoldMin, c.FoldMax))
 	}
 	if rf.MultiplierFree {
 		cs = append(cs, fmt.Sprintf("and a multiplier %.4f", rf.Multiplier))
@@ -414,6 +416,7 @@ type surveyFamilyJSON struct {
 	RefitMult    *float64                `json:"refit_multiplier"`
 	RefitLambda  *float64                `json:"refit_ridge_lambda,omitempty"`
 	RefitBetter  *bool                   `json:"refit_better"`
+	RefitWorse   *bool                   `json:"refit_worse"`
 	Overfits     *bool                   `json:"refit_overfits"`
 	RefitNote    string                  `json:"refit_note,omitempty"`
 	Coefficients []surveyCoefficientJSON `json:"coefficients"`
@@ -477,7 +480,7 @@ func surveyJSON(sv *lab.Survey, res *fit.SurveyResult, folds int) map[string]any
 			if rf := f.Refit; rf != nil {
 				j.AARERefit, j.AARERefitCV = ptr(rf.Tuned.AARE), ptr(rf.CV.AARE)
 				j.RefitMult, j.RefitLambda = ptr(rf.Multiplier), ptr(rf.Lambda)
-				j.RefitBetter, j.Overfits = ptr(rf.Better), ptr(rf.Overfits)
+				j.RefitBetter, j.RefitWorse, j.Overfits = ptr(rf.Better), ptr(rf.Worse), ptr(rf.Overfits)
 				for _, c := range rf.Coefficients {
 					j.Coefficients = append(j.Coefficients, surveyCoefficientJSON(c))
 				}

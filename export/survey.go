@@ -195,13 +195,15 @@ func surveyProperty(sv *lab.Survey, sp fit.SurveyProperty) (surveyPropView, erro
 				remarks = append(remarks, "refit predicts unseen samples better")
 			case rf.Overfits:
 				remarks = append(remarks, "refit overfits: better on the database, worse on unseen samples")
+			case rf.Worse:
+				remarks = append(remarks, "refit predicts unseen samples worse")
 			}
 			var cs []string
 			for _, c := range rf.Coefficients {
 				if c.Held != "" {
 					cs = append(cs, fmt.Sprintf("%s %.5g held (%s)", c.ID, c.Published, c.Held))
 				} else {
-					cs = append(cs, fmt.Sprintf("%s %.5g → %.5g (folds %.5g–%.5g)", c.ID, c.Published, c.Refit, c.FoldMin, c.FoldMax))
+					cs = append(cs, fmt.Sprintf("%s %.5g → %.5g (folds %.5g to %.5g)", c.ID, c.Published, c.Refit, c.FoldMin, c.FoldMax))
 				}
 			}
 			if rf.MultiplierFree {

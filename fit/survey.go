@@ -138,8 +138,10 @@ type SurveyRefit struct {
 	Evals          int                 `json:"evaluations"`  // objective evaluations, all folds
 	// Better: the refit's cross-validated AARE beats the multiplier's by the margins of the
 	// report ladder (10 % and 0.05 points). Overfits: it fits the samples better than the
-	// multiplier but predicts unseen ones worse, by 0.05 points or more.
+	// multiplier but predicts unseen ones worse, by 0.05 points or more. Worse: it predicts unseen
+	// samples worse by that much, whatever its training error.
 	Better   bool `json:"better"`
+	Worse    bool `json:"worse"`
 	Overfits bool `json:"overfits"`
 }
 
@@ -1158,5 +1160,6 @@ func (j *surveyJob) finishRefit(sv *lab.Survey) {
 	rf.CV = surveyStats(pr.Lab, pr.RefitCV)
 	cvM, cvR := out.CV.AARE, rf.CV.AARE
 	rf.Better = cvR <= (1-chooseRelMargin)*cvM && cvM-cvR >= chooseAbsMargin
-	rf.Overfits = rf.Tuned.AARE < out.Tuned.AARE && cvR >= cvM+chooseAbsMargin
+	rf.Worse = cvR >= cvM+chooseAbsMargin
+	rf.Overfits = rf.Tuned.AARE < out.Tuned.AARE && rf.Worse
 }
