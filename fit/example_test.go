@@ -15,5 +15,5 @@ func ExampleTune() {
 	res, _ := fit.Tune(ds, fit.Pb, "standing", fit.Options{})
 	fmt.Printf("depth %s, AARE %.2g %% → %.2g %% (leave-one-out %.2g %%), Pb %.4g psia\n",
 		res.Depth, res.Published.AARE, res.Tuned.AARE, *res.LOO, res.Residuals[0].Tuned)
-	// Output: depth shape, AARE 6.5 % → 0.3 % (leave-one-out 0.34 %), Pb 3054 psia
+	// Output: depth shape, AARE 6.5 % → 0.3 % (leave-one-out 0.35 %), Pb 3054 psia
 }

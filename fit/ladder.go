@@ -173,6 +173,24 @@ func (pr *problem) fitRung(d Depth, l layout, start []float64) (rungFit, error) 
 	if err != nil {
 		return rf, err
 	}
+	// Nelder–Mead (the Huber loss) can stall in a narrow valley (a coefficient strongly
+	// correlated with the multiplier) when its first simplex is large: restart from the result
+	// with smaller simplices while that still lowers the objective.
+	if len(x) > 1 && pr.loss == Huber {
+		best := pr.objectiveAt(x)
+		for _, size := range []float64{0.05, 0.02, 0.05, 0.02} {
+			y, ev, err := pr.minimize(x, size)
+			rf.evals += ev
+			if err != nil {
+				break
+			}
+			v := pr.objectiveAt(y)
+			if !(v < best*(1-1e-9)) {
+				break
+			}
+			x, best = y, v
+		}
+	}
 	q, err := pr.params(x)
 	if err != nil {
 		return rf, err
@@ -184,6 +202,15 @@ func (pr *problem) fitRung(d Depth, l layout, start []float64) (rungFit, error) 
 	}
 	rf.rung.Flags = multiplierFlags(pr.prop, rf.q, l)
 	return rf, nil
+}
+
+// objectiveAt is the objective at optimiser coordinates x under the current layout.
+func (pr *problem) objectiveAt(x []float64) float64 {
+	q, err := pr.params(x)
+	if err != nil {
+		return penalty
+	}
+	return pr.objective(q)
 }
 
 // leaveOneOut refits the rung with each free point left out in turn and predicts it. The

@@ -82,13 +82,8 @@ func NewModel(ds *Dataset, results map[PropertyID]Result, opts Options) (*Model,
 		return nil, err
 	}
 	m.bo = boModel{bo, m.Oil}
-	for _, p := range []PropertyID{Pb, Bo} {
-		var n int
-		if p == Pb {
-			n = len(sg.Coefficients)
-		} else {
-			n = len(bo.Coefficients)
-		}
+	for _, p := range Properties {
+		n := len(DeclaredCoefficients(p, m.Families[p]))
 		if c := m.Params[p].Coefficients; c != nil && len(c) != n {
 			return nil, fmt.Errorf("fit: model: %s %s: %d coefficients, the family declares %d", p, m.Families[p], len(c), n)
 		}
@@ -121,7 +116,7 @@ func NewModel(ds *Dataset, results map[PropertyID]Result, opts Options) (*Model,
 	if m.Bob, err = m.boSat(m.Pb, m.Rsb); err != nil {
 		return nil, fmt.Errorf("fit: model: Bo at Pb: %w", err)
 	}
-	mud, err := dead.Viscosity(m.Oil)
+	mud, err := muDeadModel{dead, m.Oil}.value(m.Params[MuDead].Coefficients)
 	if err != nil {
 		return nil, fmt.Errorf("fit: model: dead-oil viscosity: %w", err)
 	}
@@ -159,7 +154,7 @@ func (m *Model) boSat(p, rs float64) (float64, error) {
 }
 
 func (m *Model) muSat(rs float64) (float64, error) {
-	v, err := m.sat.Viscosity(m.MuDead, rs, m.Oil)
+	v, err := muSatModel{m.sat, m.Oil, m.MuDead}.value(m.Params[MuSat].Coefficients, m.MuDead, rs)
 	q := m.Params[MuSat]
 	return q.Multiplier*v + q.Shift, err
 }

@@ -195,10 +195,17 @@ type muDeadModel struct {
 	oil correlations.Oil
 }
 
-func (muDeadModel) coefficients() []correlations.Coefficient { return nil }
+func (m muDeadModel) coefficients() []correlations.Coefficient { return m.f.Coefficients }
 
-func (m muDeadModel) basis(_ []float64, pts []Point, a, b []float64) error {
-	v, err := m.f.Viscosity(m.oil)
+func (m muDeadModel) value(c []float64) (float64, error) {
+	if c == nil || m.f.ViscosityWith == nil {
+		return m.f.Viscosity(m.oil)
+	}
+	return m.f.ViscosityWith(m.oil, c)
+}
+
+func (m muDeadModel) basis(c []float64, pts []Point, a, b []float64) error {
+	v, err := m.value(c)
 	if err != nil {
 		return err
 	}
@@ -215,11 +222,18 @@ type muSatModel struct {
 	muDead float64
 }
 
-func (muSatModel) coefficients() []correlations.Coefficient { return nil }
+func (m muSatModel) coefficients() []correlations.Coefficient { return m.f.Coefficients }
 
-func (m muSatModel) basis(_ []float64, pts []Point, a, b []float64) error {
+func (m muSatModel) value(c []float64, muDead, rs float64) (float64, error) {
+	if c == nil || m.f.ViscosityWith == nil {
+		return m.f.Viscosity(muDead, rs, m.oil)
+	}
+	return m.f.ViscosityWith(muDead, rs, m.oil, c)
+}
+
+func (m muSatModel) basis(c []float64, pts []Point, a, b []float64) error {
 	for i, pt := range pts {
-		v, err := m.f.Viscosity(m.muDead, pt.Rs, m.oil)
+		v, err := m.value(c, m.muDead, pt.Rs)
 		if err != nil {
 			return err
 		}

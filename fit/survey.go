@@ -951,7 +951,7 @@ func (j *surveyJob) refit(sv *lab.Survey, fold int) surveyFit {
 		}
 		return true
 	}
-	x, evals, err := levenbergMarquardt(residuals, len(j.keep), len(idx)+len(j.keep))
+	x, evals, err := levenbergMarquardt(residuals, make([]float64, len(j.keep)), len(idx)+len(j.keep))
 	fit.evals = evals
 	if err != nil {
 		fit.err = err
@@ -972,21 +972,24 @@ const (
 	lmSmallSteps = 3     // this many small steps in a row end the fit
 )
 
-// levenbergMarquardt minimises the sum of squares of resid(x) over x ∈ ℝᵏ from x = 0, with
+// levenbergMarquardt minimises the sum of squares of resid(x) over x ∈ ℝᵏ from x0 (k = len(x0)), with
 // Marquardt's scaling of the damping by the diagonal of JᵀJ and a forward-difference Jacobian
 // (Marquardt, D.W. (1963), "An Algorithm for Least-Squares Estimation of Nonlinear Parameters",
 // J. SIAM 11 (2): 431–441; Nielsen's update of the damping, as in Madsen, Nielsen and
 // Tingleff (2004), "Methods for Non-Linear Least Squares Problems", DTU, §3.2). The survey
 // refit is a sum of squared residuals of hundreds of samples in a few coefficients, where
 // Nelder–Mead (the report tuner's method) was measured to stop short of the optimum: its
-// training error came out above its own cross-validated error. It returns the optimum, the
-// number of residual evaluations, and an error when resid cannot be evaluated at the start.
-func levenbergMarquardt(resid func(x, out []float64) bool, k, m int) ([]float64, int, error) {
-	x := make([]float64, k)
+// training error came out above its own cross-validated error; the report tuner's refit
+// depth showed the same (a coefficient correlated with the multiplier). It returns the optimum,
+// the number of residual evaluations, and an error when resid cannot be evaluated at the start.
+// m is the number of residuals.
+func levenbergMarquardt(resid func(x, out []float64) bool, x0 []float64, m int) ([]float64, int, error) {
+	k := len(x0)
+	x := append([]float64(nil), x0...)
 	r := make([]float64, m)
 	evals := 1
 	if !resid(x, r) {
-		return nil, evals, errors.New("fit: the family cannot be evaluated for every training sample at the published coefficients")
+		return nil, evals, errors.New("fit: the family cannot be evaluated for every point at the start")
 	}
 	cost := dot(r, r)
 	jac := mat.NewDense(m, k, nil)

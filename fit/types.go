@@ -258,6 +258,14 @@ func DeclaredCoefficients(p PropertyID, family string) []correlations.Coefficien
 		if f, err := correlations.OilFVFByID(family); err == nil {
 			return f.Coefficients
 		}
+	case MuDead:
+		if f, err := correlations.DeadViscosityByID(family); err == nil {
+			return f.Coefficients
+		}
+	case MuSat:
+		if f, err := correlations.SatViscosityByID(family); err == nil {
+			return f.Coefficients
+		}
 	}
 	return nil
 }
