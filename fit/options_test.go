@@ -111,3 +111,22 @@ func TestModelConsistency(t *testing.T) {
 		}
 	}
 }
+
+// A per-property depth overrides the common one for that property only (behaviour).
+func TestPropertyDepth(t *testing.T) {
+	r, err := samples.Load("tr3-black")
+	if err != nil {
+		t.Fatal(err)
+	}
+	ds, err := NewDataset(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := TuneAll(ds, nil, Options{Depth: DepthMultiplier, PropertyDepth: map[PropertyID]Depth{Bo: DepthPublished, Pb: ""}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if res[Bo].Depth != DepthPublished || res[Co].Depth != DepthMultiplier || res[Pb].Depth != DepthShape {
+		t.Errorf("depths bo %s, co %s, pb %s; want published, multiplier and the leave-one-out choice (shape)", res[Bo].Depth, res[Co].Depth, res[Pb].Depth)
+	}
+}

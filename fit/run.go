@@ -97,7 +97,7 @@ func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, s
 			return res, err
 		}
 	} else {
-		if chosen, err = pr.ladder(&res, opts.Depth); err != nil {
+		if chosen, err = pr.ladder(&res, opts.depthFor(prop)); err != nil {
 			return res, err
 		}
 	}

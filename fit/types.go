@@ -108,9 +108,13 @@ const (
 type Options struct {
 	// Depth forces a rung of the ladder; "" = the rung with the smallest leave-one-out error
 	// (a deeper rung only when it wins clearly, see chooseRung).
-	Depth      Depth
-	Loss       Loss    // "" = Relative
-	HuberDelta float64 // relative error where the Huber loss turns linear; 0 = 0.02
+	Depth Depth
+	// PropertyDepth forces the depth of single properties, over Depth ("" in it: chosen by
+	// leave-one-out), so that a chain of properties (the live-oil viscosities on the tuned
+	// dead-oil one) keeps each property's own depth.
+	PropertyDepth map[PropertyID]Depth
+	Loss          Loss    // "" = Relative
+	HuberDelta    float64 // relative error where the Huber loss turns linear; 0 = 0.02
 	// Ridge is the strength λ of the refit depth's pull towards the published coefficients;
 	// 0 = RidgeStrength.
 	Ridge float64
@@ -135,6 +139,14 @@ func (o Options) huberDelta() float64 {
 		return 0.02
 	}
 	return o.HuberDelta
+}
+
+// depthFor is the depth forced for property p, "" for the leave-one-out choice.
+func (o Options) depthFor(p PropertyID) Depth {
+	if d, ok := o.PropertyDepth[p]; ok {
+		return d
+	}
+	return o.Depth
 }
 
 func (o Options) ridge() float64 {
