@@ -581,21 +581,7 @@ func TestBranchPressures(t *testing.T) {
 // Without a viscosity measured at Pb, the undersaturated viscosity starts from the tuned
 // saturated one: leaving a saturated point out refits both, as TuneAll chains them.
 func TestChainedViscosityRefit(t *testing.T) {
-	load := func() (*lab.Report, error) {
-		r, err := samples.Load(samples.Default)
-		if err != nil {
-			return nil, err
-		}
-		var keep []lab.ViscosityPoint
-		for _, v := range r.Viscosity {
-			if v.Pressure != r.Fluid.Pb {
-				keep = append(keep, v)
-			}
-		}
-		r.Viscosity = keep
-		return r, nil
-	}
-	m := newTest(t, 120, 40, WithReport("no-mu-at-pb", load))
+	m := newTest(t, 120, 40, WithReport("no-mu-at-pb", loadWithoutMuAtPb))
 	s := m.c.s
 	if s.ds.MuBLab != 0 || !chained(s.ds, fit.MuUnder) {
 		t.Fatalf("the report still has a viscosity at Pb (%v)", s.ds.MuBLab)
@@ -615,6 +601,66 @@ func TestChainedViscosityRefit(t *testing.T) {
 	}
 	if s.results[fit.MuUnder].Params.Multiplier == before {
 		t.Error("mu_under was not refitted after mu_sat changed")
+	}
+}
+
+// loadWithoutMuAtPb is the default demo report without its viscosity measured at Pb, so that
+// the undersaturated viscosity is chained to the tuned saturated one.
+func loadWithoutMuAtPb() (*lab.Report, error) {
+	r, err := samples.Load(samples.Default)
+	if err != nil {
+		return nil, err
+	}
+	var keep []lab.ViscosityPoint
+	for _, v := range r.Viscosity {
+		if v.Pressure != r.Fluid.Pb {
+			keep = append(keep, v)
+		}
+	}
+	r.Viscosity = keep
+	return r, nil
+}
+
+// Each property keeps the depth set for it, also inside a chained refit: with mu_dead at
+// published, mu_sat at shape and mu_under at multiplier, refitting mu_under tunes mu_sat at
+// shape under it, as TuneAll does with those per-property depths (behaviour).
+func TestChainKeepsEachPropertysDepth(t *testing.T) {
+	m := newTest(t, 120, 40, WithReport("no-mu-at-pb", loadWithoutMuAtPb))
+	s := m.c.s
+	if !chained(s.ds, fit.MuUnder) {
+		t.Fatal("mu_under is not chained to mu_sat in this report")
+	}
+	m = focus(t, m, fit.MuDead)
+	m = press(t, m, "d") // published
+	m = focus(t, m, fit.MuSat)
+	m = press(t, m, "d", "d", "d") // published, multiplier, shape
+	m = focus(t, m, fit.MuUnder)
+	m = press(t, m, "d", "d") // published, multiplier
+	m = press(t, m, "space")  // leave the first undersaturated point out: the chain refits
+	want := map[fit.PropertyID]fit.Depth{fit.MuDead: fit.DepthPublished, fit.MuSat: fit.DepthShape, fit.MuUnder: fit.DepthMultiplier}
+	for p, d := range want {
+		if got := s.results[p].Depth; got != d {
+			t.Errorf("%s at depth %q, want %q", p, got, d)
+		}
+	}
+	opts := fit.Options{PropertyDepth: want, Excluded: map[fit.PropertyID][]int{fit.MuUnder: {0}}}
+	ref, err := fit.TuneAll(s.ds, s.choiceCopy(), opts)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range []fit.PropertyID{fit.MuSat, fit.MuUnder} {
+		if got, want := s.results[p].Params.Multiplier, ref[p].Params.Multiplier; math.Abs(got-want) > 1e-12 {
+			t.Errorf("%s multiplier %v, TuneAll with each property's depth gives %v", p, got, want)
+		}
+	}
+	// The chain under mu_under at one depth for all (what a single Options.Depth would do)
+	// gives another mu_under, so the check above can tell the two apart.
+	one, err := fit.TuneAll(s.ds, s.choiceCopy(), fit.Options{Depth: fit.DepthMultiplier, Excluded: opts.Excluded})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(one[fit.MuUnder].Params.Multiplier-ref[fit.MuUnder].Params.Multiplier) < 1e-9 {
+		t.Error("this report cannot tell a per-property depth from a common one; choose another")
 	}
 }
 

@@ -96,16 +96,27 @@ func newSession(tool, src string) *session {
 	}
 }
 
-// options are the fit options of property p as the session stands: its rung, the loss and a
-// copy of the excluded points.
-func (s *session) options(p fit.PropertyID) fit.Options {
+// options are the fit options as the session stands: every property's forced rung (the
+// others chosen by leave-one-out), the loss and a copy of the excluded points. They hold for
+// any property, so that a chained fit (TuneAll for the live-oil viscosities) tunes each
+// property of the chain at its own rung.
+func (s *session) options() fit.Options {
 	ex := map[fit.PropertyID][]int{}
 	for q, idx := range s.excluded {
 		if len(idx) > 0 {
 			ex[q] = append([]int(nil), idx...)
 		}
 	}
-	return fit.Options{Depth: s.depth[p], Loss: s.loss, Excluded: ex}
+	var pd map[fit.PropertyID]fit.Depth
+	for q, d := range s.depth {
+		if d != "" {
+			if pd == nil {
+				pd = map[fit.PropertyID]fit.Depth{}
+			}
+			pd[q] = d
+		}
+	}
+	return fit.Options{PropertyDepth: pd, Loss: s.loss, Excluded: ex}
 }
 
 // anyBusy reports whether a fit of any property is running.
@@ -155,7 +166,7 @@ func (s *session) snapshot() Snapshot {
 	for p, r := range s.results {
 		res[p] = r
 	}
-	opts := s.options("")
+	opts := s.options()
 	return Snapshot{Tool: s.tool, Report: s.report, Dataset: s.ds, Results: res, Options: opts, Model: s.table.model}
 }
 
@@ -322,7 +333,14 @@ func startCmd(ds *fit.Dataset, r *lab.Report, tf *export.TuningFile, force bool)
 			} else {
 				msg.results, msg.loss, msg.exclude, msg.applied = res, fo.Loss, fo.Excluded, true
 				msg.note = "families and parameters from the tuning file"
-				opts = fit.Options{Loss: fo.Loss, Excluded: fo.Excluded}
+				// The file fixes each property's rung: rank the families at it too.
+				pd := map[fit.PropertyID]fit.Depth{}
+				for p, r := range res {
+					if r.Depth != "" {
+						pd[p] = r.Depth
+					}
+				}
+				opts = fit.Options{Loss: fo.Loss, Excluded: fo.Excluded, PropertyDepth: pd}
 			}
 		}
 		msg.ranking = fit.Rank(ds, opts)
@@ -381,20 +399,14 @@ func rankDueCmd(delay time.Duration, seq int) tea.Cmd {
 	return tea.Tick(delay, func(time.Time) tea.Msg { return rankDueMsg{seq: seq} })
 }
 
-// rankCmd ranks the families of the given properties, each with its own options.
-func rankCmd(ds *fit.Dataset, opts map[fit.PropertyID]fit.Options, seq int) tea.Cmd {
+// rankCmd ranks the families of the given properties (each at its own forced rung, through
+// opts.PropertyDepth).
+func rankCmd(ds *fit.Dataset, props []fit.PropertyID, opts fit.Options, seq int) tea.Cmd {
 	return func() tea.Msg {
 		out := map[fit.PropertyID][]fit.RankEntry{}
-		// One Rank per distinct rung: Rank scores every property with one set of options.
-		byDepth := map[fit.Depth][]fit.PropertyID{}
-		for p, o := range opts {
-			byDepth[o.Depth] = append(byDepth[o.Depth], p)
-		}
-		for _, ps := range byDepth {
-			rk := fit.Rank(ds, opts[ps[0]])
-			for _, p := range ps {
-				out[p] = rk[p]
-			}
+		rk := fit.Rank(ds, opts)
+		for _, p := range props {
+			out[p] = rk[p]
 		}
 		return rankMsg{seq: seq, entries: out}
 	}
@@ -593,7 +605,7 @@ func (s *session) refit(p fit.PropertyID) tea.Cmd {
 	}
 	s.seq[p]++
 	s.busy[p] = true
-	return fitCmd(s.ds, p, fam, s.options(p), s.choiceCopy(), s.seq[p])
+	return fitCmd(s.ds, p, fam, s.options(), s.choiceCopy(), s.seq[p])
 }
 
 // refitAll refits every property (after a change of the objective).
@@ -624,12 +636,12 @@ func (s *session) onRankDue(msg rankDueMsg) tea.Cmd {
 	if msg.seq != s.rankSeq || len(s.rankDirty) == 0 {
 		return nil
 	}
-	opts := map[fit.PropertyID]fit.Options{}
+	var props []fit.PropertyID
 	for p := range s.rankDirty {
-		opts[p] = s.options(p)
+		props = append(props, p)
 	}
 	s.rankBusy = true
-	return rankCmd(s.ds, opts, msg.seq)
+	return rankCmd(s.ds, props, s.options(), msg.seq)
 }
 
 func (s *session) onRank(msg rankMsg) {
@@ -653,7 +665,7 @@ func (s *session) requestCompare(p fit.PropertyID) tea.Cmd {
 		delete(s.compared, p)
 		return nil
 	}
-	return compareCmd(s.ds, p, append([]string(nil), s.compare[p]...), s.options(p), s.choiceCopy(), s.cmpSeq[p])
+	return compareCmd(s.ds, p, append([]string(nil), s.compare[p]...), s.options(), s.choiceCopy(), s.cmpSeq[p])
 }
 
 func (s *session) onCompare(msg compareMsg) {
@@ -674,7 +686,7 @@ func (s *session) requestTable() tea.Cmd {
 	for p, r := range s.results {
 		res[p] = r
 	}
-	return tableCmd(s.ds, res, s.options(""), s.tableSeq)
+	return tableCmd(s.ds, res, s.options(), s.tableSeq)
 }
 
 func (s *session) onTable(msg tableMsg) {
