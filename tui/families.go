@@ -99,7 +99,15 @@ func (f familiesScreen) view(c *common, w, h int) string {
 	if !ok {
 		return strings.Join(append(lines, st.Dim.Render("ranking…")), "\n")
 	}
-	lines = append(lines, st.Title.Render(propertyTitle(p))+st.Dim.Render(fmt.Sprintf("   %s · best first · %s errors", plural(len(s.ds.Points[p]), "point"), s.loss)))
+	at := "each at its rung by LOO"
+	if d := s.depth[p]; d != "" {
+		at = "all at depth " + string(d)
+	}
+	title := st.Title.Render(propertyTitle(p))
+	if w < 100 {
+		title = st.Title.Render(string(p))
+	}
+	lines = append(lines, cell(title+st.Dim.Render(fmt.Sprintf("   %s · best first · %s · %s errors", plural(len(s.ds.Points[p]), "point"), at, s.loss)), w))
 	famW, nw := 22, 9
 	if w < 90 {
 		famW, nw = 20, 8
@@ -137,6 +145,9 @@ func (f familiesScreen) view(c *common, w, h int) string {
 			if !e.InRange {
 				rng = "OUT"
 			}
+			if len(e.Flags) > 0 {
+				rng += " !"
+			}
 			depth := string(e.Depth)
 			if depth == "" {
 				depth = "n/a"
@@ -155,7 +166,7 @@ func (f familiesScreen) view(c *common, w, h int) string {
 		}
 		lines = append(lines, row)
 	}
-	lines = append(lines, st.Dim.Render(cell("  ✓ in use   ◆ compared on the Match plot   errors are AARE %", w)), "")
+	lines = append(lines, st.Dim.Render(cell("  ✓ in use   ◆ compared on the Match plot   ! warning below   errors: AARE %", w)), "")
 	if len(es) > 0 {
 		lines = append(lines, familyDetail(c, p, es[cur], w)...)
 	}

@@ -72,12 +72,19 @@ func wrap(text string, w int, indent string) []string {
 	}
 	lead := text[:len(text)-len(strings.TrimLeft(text, " "))]
 	text = strings.TrimLeft(text, " ")
+	var words []string
+	for _, word := range strings.Split(text, " ") { // a no-break space ( ) holds words together
+		switch {
+		case word == "":
+		case strings.HasPrefix(word, "%") && len(words) > 0: // "3.4 %" is not broken before the %
+			words[len(words)-1] += "\u00a0" + word
+		default:
+			words = append(words, word)
+		}
+	}
 	var out []string
 	line := lead
-	for _, word := range strings.Split(text, " ") { // a no-break space ( ) holds words together
-		if word == "" {
-			continue
-		}
+	for _, word := range words {
 		switch {
 		case strings.TrimSpace(line) == "":
 			line += word

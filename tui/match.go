@@ -378,7 +378,7 @@ func (m matchScreen) ladderLines(c *common, p fit.PropertyID, r fit.Result, w, h
 		var parts []string
 		for _, d := range fit.Depths {
 			g, ok := rungs[d]
-			t := string(d) + " "
+			t := string(d) + "\u00a0" // one rung is not broken across lines
 			switch {
 			case !ok:
 				t += "n/a"
@@ -510,6 +510,9 @@ func relErr(v, lab float64) float64 {
 func signed(v float64) string {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return "—"
+	}
+	if math.Abs(v) < 0.005 {
+		v = 0 // no "-0.00"
 	}
 	return fmt.Sprintf("%+.2f", v)
 }

@@ -256,10 +256,11 @@ func reportContent(c *common, w int) ([]string, []int) {
 				basis[b.Line] = b
 			}
 		}
-		cols := []column{{"p psia", 7, false, false}, {"Rsd", 5, false, false}, {"Bod", 6, false, false}, {"Bt", 6, false, false}, {"ρo lb/ft3", 9, true, false},
+		cols := []column{{"p psia", 7, false, false}, {"Rsd", 5, false, false}, {"Bod", 6, false, false}, {"Bt", 7, false, false}, {"ρo lb/ft3", 9, true, false},
 			{"Z", 6, false, false}, {"Bg", 7, true, false}, {"γg", 5, false, false}, {"│", 1, false, true}, {"Rs", 5, false, false}, {"Bo", 6, false, false}, {"Bt", 7, true, false}}
 		var rows [][]string
 		var lines []int
+		clamped := false
 		for _, d := range r.DL {
 			b, ok := basis[d.Line]
 			rs, bo, bt := "", "", ""
@@ -267,6 +268,7 @@ func reportContent(c *common, w int) ([]string, []int) {
 				rs, bo, bt = num(b.Rs, 0), num(b.Bo, 4), optional(b.Bt, 4)
 				if b.Clamped {
 					rs += "*"
+					clamped = true
 				}
 			}
 			p := num(d.Pressure, 1)
@@ -279,13 +281,20 @@ func reportContent(c *common, w int) ([]string, []int) {
 		}
 		out = append(out, tableBlock(c, w, "dl.csv", "Differential liberation", cols, lines, rows)...)
 		out = out[:len(out)-1]
-		out = append(out, st.Dim.Render(cell(strings.Repeat(" ", gutterW+5)+"Rsd scf/bbl, Bod and Bt rb/bbl residual oil as reported │ separator basis: Rs scf/STB, Bo, Bt rb/STB", w)), "")
+		note := "Rsd scf/bbl, Bod and Bt rb/bbl residual oil as reported · Bg rcf/scf │ separator basis: Rs scf/STB, Bo and Bt rb/STB"
+		if clamped {
+			note += " · * came out below zero, set to 0"
+		}
+		for _, l := range wrap(strings.Repeat(" ", gutterW+5)+note, w, strings.Repeat(" ", gutterW+5)) {
+			out = append(out, st.Dim.Render(l))
+		}
+		out = append(out, "")
 	}
 
 	// Separator tests.
 	if len(r.Separator) > 0 {
 		sel, _ := r.SelectedSeparator()
-		cols := []column{{"test", 6, false, true}, {"stage", 10, false, true}, {"p psia", 7, false, false}, {"T °F", 5, false, false}, {"GOR", 5, false, false},
+		cols := []column{{"test", 10, false, true}, {"stage", 10, false, true}, {"p psia", 7, false, false}, {"T °F", 5, false, false}, {"GOR", 5, false, false},
 			{"γg", 5, false, false}, {"Bofb", 6, false, false}, {"API", 5, false, false}}
 		var rows [][]string
 		var lines []int
