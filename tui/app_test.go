@@ -502,6 +502,37 @@ func TestTableOfTunedModel(t *testing.T) {
 	}
 }
 
+// The Tables screen shows the table that the table files hold: cmd_exporters.go builds it
+// with export.BuildTable, the export package's default grid up to the report's highest
+// pressure and its default salinity; the screen's rows are those rows, and the Pb row's
+// branch is shown under it (behaviour).
+func TestTablesScreenShowsTheFilesTable(t *testing.T) {
+	m := newTest(t, 120, 40)
+	s := m.c.s
+	snap := s.snapshot()
+	if snap.Table == nil || snap.Model == nil {
+		t.Fatalf("no table in the snapshot: %v", s.table.err)
+	}
+	src := export.NewSource(snap.Tool, snap.Dataset.Name, snap.Report.Fingerprint, "tuned in the workbench", snap.Model, snap.Results)
+	want, err := export.BuildTable(snap.Model, src, export.TableOptions{MaxLabPressure: export.MaxLabPressure(snap.Report), Salinity: export.DefaultSalinity})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(s.table.rows) != len(want.Rows) {
+		t.Fatalf("%d rows on screen, %d in the file's table", len(s.table.rows), len(want.Rows))
+	}
+	for i, r := range want.Rows {
+		got := s.table.rows[i].st
+		if got.Pressure != r.Pressure || got.Rs != r.Rs || got.Bo != r.Bo || len(s.table.branches[i]) != len(r.Branch) {
+			t.Errorf("row %d: screen p %v Rs %v Bo %v (%d branch points), file p %v Rs %v Bo %v (%d)", i, got.Pressure, got.Rs, got.Bo, len(s.table.branches[i]), r.Pressure, r.Rs, r.Bo, len(r.Branch))
+		}
+	}
+	v := press(t, m, "4", "end").View()
+	if !strings.Contains(v, "ext ") {
+		t.Errorf("the extrapolated rows above Pb are not marked:\n%s", v)
+	}
+}
+
 func TestEveryDemoOpens(t *testing.T) {
 	for _, sp := range samples.Specs {
 		t.Run(sp.ID, func(t *testing.T) {
@@ -557,23 +588,6 @@ func TestReportWithoutSeparatorTest(t *testing.T) {
 		}
 		if m.prompt.active() {
 			t.Error("a save prompt opened for an untuned report")
-		}
-	}
-}
-
-func TestBranchPressures(t *testing.T) {
-	for _, c := range []struct {
-		p, pmax float64
-		want    []float64
-	}{
-		{14.7, 7500, []float64{2500, 5000, 7500}},
-		{3000, 7500, []float64{4000, 6000, 7500}},
-		{7000, 7500, []float64{7200, 7400, 7500}},
-		{7500, 7500, nil},
-	} {
-		got := branchPressures(c.p, c.pmax)
-		if fmt.Sprint(got) != fmt.Sprint(c.want) {
-			t.Errorf("branchPressures(%v, %v) = %v, want %v", c.p, c.pmax, got, c.want)
 		}
 	}
 }

@@ -63,6 +63,10 @@ type Snapshot struct {
 	Results map[fit.PropertyID]fit.Result
 	Options fit.Options // loss and excluded points as tuned
 	Model   *fit.Model  // the tuned model built from Results; nil when it could not be built
+	// Table is the black-oil table the Tables screen shows (export.BuildTable of Model with
+	// the export package's default grid and salinity); nil when it could not be built. A
+	// table exporter that writes it writes what the screen shows.
+	Table *export.Table
 }
 
 // Exporter writes one kind of file from a snapshot. It must write atomically and keep an

@@ -106,10 +106,3 @@ func TestTicks(t *testing.T) {
 	}
 }
 
-func TestNiceStep(t *testing.T) {
-	for x, want := range map[float64]float64{0.3: 0.5, 1: 1, 1.5: 2, 2.2: 2.5, 244: 250, 1015: 2000, 7: 10} {
-		if got := niceStep(x); math.Abs(got-want) > 1e-9 {
-			t.Errorf("niceStep(%v) = %v, want %v", x, got, want)
-		}
-	}
-}

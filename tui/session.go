@@ -167,7 +167,7 @@ func (s *session) snapshot() Snapshot {
 		res[p] = r
 	}
 	opts := s.options()
-	return Snapshot{Tool: s.tool, Report: s.report, Dataset: s.ds, Results: res, Options: opts, Model: s.table.model}
+	return Snapshot{Tool: s.tool, Report: s.report, Dataset: s.ds, Results: res, Options: opts, Model: s.table.model, Table: s.table.table}
 }
 
 // dependents are the properties whose fit uses p's tuned result (the live-oil viscosities use
@@ -431,8 +431,8 @@ func compareCmd(ds *fit.Dataset, p fit.PropertyID, fams []string, opts fit.Optio
 }
 
 // tableCmd builds the tuned model and its black-oil table.
-func tableCmd(ds *fit.Dataset, results map[fit.PropertyID]fit.Result, opts fit.Options, seq int) tea.Cmd {
-	return func() tea.Msg { return tableMsg{seq: seq, table: buildTable(ds, results, opts)} }
+func tableCmd(ds *fit.Dataset, r *lab.Report, tool string, results map[fit.PropertyID]fit.Result, opts fit.Options, seq int) tea.Cmd {
+	return func() tea.Msg { return tableMsg{seq: seq, table: buildTable(ds, r, tool, results, opts)} }
 }
 
 // saveCmd writes one file through its exporter.
@@ -515,9 +515,9 @@ func curvesFor(ds *fit.Dataset, p fit.PropertyID, r fit.Result, opts fit.Options
 type rowKind int
 
 const (
-	rowSaturated rowKind = iota // the report's oil at or below Pb
-	rowUnder                    // the report's oil above Pb
-	rowBranch                   // an undersaturated branch of a saturated row
+	rowSaturated rowKind = iota // the oil at its bubble point, at or below the tuned Pb
+	rowExtrap                   // a saturated row above Pb: an oil with more gas than the report's
+	rowBranch                   // an undersaturated point of a saturated row's branch
 )
 
 type tableRow struct {
@@ -526,73 +526,57 @@ type tableRow struct {
 	err  error
 }
 
-// tableData is the preview of the black-oil table: the saturated rows of the report's oil up to
-// Pb, its undersaturated rows above, and for each saturated row its undersaturated branch.
+// tableData is the black-oil table of the tuned model as the table files hold it
+// (export.BuildTable with tableOptions): the saturated rows and, for each, its undersaturated
+// branch; the Pb row's branch is the report's oil above its bubble point.
 type tableData struct {
 	model    *fit.Model
+	table    *export.Table
 	err      error
-	rows     []tableRow   // saturated and report-oil rows, increasing pressure
-	branches [][]tableRow // branches[i] follows rows[i] (saturated rows only)
-	pmax     float64
-	step     float64
+	rows     []tableRow   // saturated rows, rising pressure
+	branches [][]tableRow // branches[i] follows rows[i]
+	noBranch []string     // why rows[i] has no branch, "" when it has one
 }
 
-// tableRows is the number of saturated rows aimed at below Pb.
-const tableRows = 12
+// tableOptions are the options of the black-oil table of a report: the export package's
+// default grid up to the report's highest pressure, and its default water salinity. The
+// table files written from the Tables screen use the same (see Snapshot.Table).
+func tableOptions(r *lab.Report) export.TableOptions {
+	o := export.TableOptions{Salinity: export.DefaultSalinity}
+	if r != nil {
+		o.MaxLabPressure = export.MaxLabPressure(r)
+	}
+	return o
+}
 
-func buildTable(ds *fit.Dataset, results map[fit.PropertyID]fit.Result, opts fit.Options) tableData {
+func buildTable(ds *fit.Dataset, r *lab.Report, tool string, results map[fit.PropertyID]fit.Result, opts fit.Options) tableData {
 	m, err := fit.NewModel(ds, results, opts)
 	if err != nil {
 		return tableData{err: err}
 	}
-	t := tableData{model: m}
-	pmax := 1.5 * m.Pb
-	for _, pts := range ds.Points {
-		for _, pt := range pts {
-			pmax = math.Max(pmax, pt.Pressure)
-		}
+	fp := ""
+	if r != nil {
+		fp = r.Fingerprint
 	}
-	t.step = niceStep(m.Pb / tableRows)
-	t.pmax = math.Ceil(pmax/t.step) * t.step
-	ps := []float64{ds.StdPressure}
-	for p := t.step; p < m.Pb*(1-1e-6); p += t.step {
-		ps = append(ps, p)
+	t, err := export.BuildTable(m, export.NewSource(tool, ds.Name, fp, "tuned in the workbench", m, results), tableOptions(r))
+	if err != nil {
+		return tableData{model: m, err: err}
 	}
-	ps = append(ps, m.Pb)
-	for p := math.Floor(m.Pb/t.step)*t.step + t.step; p <= t.pmax*(1+1e-9); p += t.step {
-		ps = append(ps, p)
-	}
-	for _, p := range ps {
-		st, err := m.At(p)
+	td := tableData{model: m, table: t}
+	for _, row := range t.Rows {
 		kind := rowSaturated
-		if p > m.Pb {
-			kind = rowUnder
+		if row.Extrapolated {
+			kind = rowExtrap
 		}
-		t.rows = append(t.rows, tableRow{kind: kind, st: st, err: err})
+		td.rows = append(td.rows, tableRow{kind: kind, st: row.State})
 		var br []tableRow
-		if kind == rowSaturated && err == nil {
-			for _, pu := range branchPressures(st.Pressure, t.pmax) {
-				bs, err := m.Undersaturated(st.Rs, pu)
-				br = append(br, tableRow{kind: rowBranch, st: bs, err: err})
-			}
+		for _, b := range row.Branch {
+			br = append(br, tableRow{kind: rowBranch, st: b})
 		}
-		t.branches = append(t.branches, br)
+		td.branches = append(td.branches, br)
+		td.noBranch = append(td.noBranch, row.NoBranch)
 	}
-	return t
-}
-
-// niceStep rounds a step up to 1, 2, 2.5 or 5 times a power of ten.
-func niceStep(x float64) float64 {
-	if !(x > 0) || math.IsInf(x, 0) {
-		return 1
-	}
-	e := math.Pow(10, math.Floor(math.Log10(x)))
-	for _, f := range []float64{1, 2, 2.5, 5, 10} {
-		if f*e >= x*(1-1e-9) {
-			return f * e
-		}
-	}
-	return 10 * e
+	return td
 }
 
 // ---- requests: each bumps a sequence number so that an older answer is recognised and dropped
@@ -686,7 +670,7 @@ func (s *session) requestTable() tea.Cmd {
 	for p, r := range s.results {
 		res[p] = r
 	}
-	return tableCmd(s.ds, res, s.options(), s.tableSeq)
+	return tableCmd(s.ds, s.report, s.tool, res, s.options(), s.tableSeq)
 }
 
 func (s *session) onTable(msg tableMsg) {
@@ -695,20 +679,4 @@ func (s *session) onTable(msg tableMsg) {
 	}
 	s.tableBusy = false
 	s.table = msg.table
-}
-
-// branchPressures are the pressures of a saturated row's undersaturated branch: round values
-// above p, about a third of the way to pmax apart, ending at pmax.
-func branchPressures(p, pmax float64) []float64 {
-	if !(pmax > p) {
-		return nil
-	}
-	step := niceStep((pmax - p) / 3)
-	var out []float64
-	for q := math.Floor(p/step)*step + step; q < pmax*(1-1e-9); q += step {
-		if q > p*(1+1e-9) {
-			out = append(out, q)
-		}
-	}
-	return append(out, pmax)
 }

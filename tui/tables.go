@@ -8,9 +8,9 @@ import (
 	tea "github.com/charmbracelet/bubbletea"
 )
 
-// tablesScreen previews the black-oil table of the tuned model (saturated rows up to Pb, the
-// report's oil above it, and on demand the undersaturated branch of every saturated row) and
-// saves the files that go on from here.
+// tablesScreen shows the black-oil table of the tuned model as the table files hold it
+// (saturated rows, the report's oil above Pb, and on demand the undersaturated branch of every
+// saturated row) and saves the files that go on from here.
 type tablesScreen struct {
 	keys     tablesKeys
 	top      int
@@ -71,7 +71,8 @@ var tableCols = []struct {
 	w     int
 }{{"p psia", 7}, {"Rs", 6}, {"Bo", 7}, {"μo cP", 7}, {"ρo", 6}, {"co", 7}, {"Z", 6}, {"Bg", 8}, {"μg cP", 7}}
 
-// lines are the table rows as text (without the header).
+// lines are the table rows as text (without the header): every saturated row, the Pb row's
+// branch (the report's oil above its bubble point) always, the other branches on demand.
 func (t tablesScreen) lines(c *common, w int) []string {
 	st := c.styles
 	td := c.s.table
@@ -90,31 +91,30 @@ func (t tablesScreen) lines(c *common, w int) []string {
 	}
 	for i, r := range td.rows {
 		mark := "sat"
-		if r.kind == rowUnder {
-			mark = "und"
+		if r.kind == rowExtrap {
+			mark = "ext"
 		}
-		if r.st.Pressure == pb {
+		isPb := r.st.Pressure == pb
+		if isPb {
 			mark = "Pb"
 		}
-		if r.err != nil {
-			out = append(out, st.Err.Render(cell(fmt.Sprintf("%s %s  %v", mark, num(r.st.Pressure, 1), r.err), w)))
-			continue
-		}
 		line := row(mark, stateCells(r))
-		if mark == "Pb" {
+		switch {
+		case isPb:
 			line = st.Bold.Render(line)
-		} else if r.kind == rowUnder {
+		case r.kind == rowExtrap:
 			line = st.Dim.Render(line)
 		}
 		out = append(out, line)
-		if t.branches {
-			for _, b := range td.branches[i] {
-				if b.err != nil {
-					out = append(out, st.Err.Render(cell("  ↳ "+b.err.Error(), w)))
-					continue
-				}
-				out = append(out, st.Tuned.Render(row("  ↳", stateCells(b))))
-			}
+		if !t.branches && !isPb {
+			continue
+		}
+		if why := td.noBranch[i]; why != "" {
+			out = append(out, st.Err.Render(cell("  ↳ no branch: "+why, w)))
+			continue
+		}
+		for _, b := range td.branches[i] {
+			out = append(out, st.Tuned.Render(row("  ↳", stateCells(b))))
 		}
 	}
 	return out
@@ -123,7 +123,7 @@ func (t tablesScreen) lines(c *common, w int) []string {
 func stateCells(r tableRow) []string {
 	s := r.st
 	co := "" // the tuned compressibility applies above the bubble point only
-	if r.kind != rowSaturated {
+	if r.kind == rowBranch {
 		co = num(s.Co*1e6, 2)
 	}
 	return []string{num(s.Pressure, 1), num(s.Rs, 1), num(s.Bo, 4), num(s.OilViscosity, 3), num(s.OilDensity, 2),
@@ -141,11 +141,15 @@ func (t tablesScreen) view(c *common, w, h int) string {
 	case !s.started || (td.model == nil && td.err == nil):
 		return st.Dim.Render("building the table of the tuned model…")
 	case td.err != nil:
-		return strings.Join(append([]string{st.Err.Render("The tuned model cannot be built")}, wrap(td.err.Error(), w, "  ")...), "\n")
+		return strings.Join(append([]string{st.Err.Render("The black-oil table of the tuned model cannot be built")}, wrap(td.err.Error(), w, "  ")...), "\n")
 	}
 	m := td.model
-	head = append(head, wrap(st.Title.Render("Black-oil table of the tuned model")+fmt.Sprintf("  at %s\u00a0°F · tuned Pb %s\u00a0psia · Rsb %s\u00a0scf/STB · rows every %s\u00a0psia to %s\u00a0psia",
-		num(m.Oil.Temperature, 0), num(m.Pb, 1), num(m.Rsb, 0), num(td.step, 0), num(td.pmax, 0)), w, "  ")...)
+	title, tail := "Black-oil table of the tuned model", " · as the table files hold it"
+	if w < 100 {
+		title, tail = "Black-oil table", ""
+	}
+	head = append(head, wrap(st.Title.Render(title)+fmt.Sprintf("  %s\u00a0°F · tuned Pb %s\u00a0psia · Rsb %s\u00a0scf/STB · %d saturated rows, %s to %s\u00a0psia%s",
+		num(m.Oil.Temperature, 0), num(m.Pb, 1), num(m.Rsb, 0), len(td.rows), num(td.table.Rows[0].Pressure, 1), num(td.table.PMax, 0), tail), w, "  ")...)
 	var fams []string
 	for _, p := range s.props {
 		fams = append(fams, string(p)+" "+m.Families[p])
@@ -187,13 +191,19 @@ func (t tablesScreen) view(c *common, w, h int) string {
 // footer explains the row marks and the save keys, and names what was last saved.
 func (t tablesScreen) footer(c *common, w int) []string {
 	st := c.styles
-	legend := "sat saturated · Pb the tuned bubble point · und the report's oil above Pb"
-	if t.branches {
-		legend += " · ↳ undersaturated branch"
-	} else {
-		legend += " · u shows the branches"
+	legend := "sat oil at its bubble point · Pb the tuned bubble point, ↳ the report's oil above it · ext above Pb: an oil with more gas, extrapolated"
+	if w < 100 {
+		legend = "sat saturated · Pb, ↳ the report's oil above it · ext extrapolated"
 	}
-	out := []string{st.Dim.Render(cell(legend, w))}
+	if t.branches {
+		legend += " · ↳ branches"
+	} else {
+		legend += " · u branches"
+	}
+	var out []string
+	for _, l := range wrap(legend, w, "  ") {
+		out = append(out, st.Dim.Render(l))
+	}
 	var parts []string
 	for _, k := range exportKinds {
 		b := map[ExportKind]key.Binding{ExportTuning: t.keys.SaveTuning, ExportTablesCSV: t.keys.SaveCSV, ExportDeck: t.keys.SaveDeck, ExportHTML: t.keys.SaveHTML}[k]
