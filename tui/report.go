@@ -188,7 +188,9 @@ func reportContent(c *common, w int) ([]string, []int) {
 		where = r.Dir
 	}
 	out = append(out, cell(st.Title.Render("Fluid")+"  "+st.Bold.Render(name)+st.Dim.Render("  "+where), w))
-	out = append(out, st.Dim.Render(cell("  left of a row: E error, W warning, n note and the finding's number in the list at the end (n jumps there)", w)))
+	for _, l := range wrap("  left of a row: E error, W warning, n note and the finding's number in the list at the end (n jumps there)", w, "  ") {
+		out = append(out, st.Dim.Render(l))
+	}
 	fl := r.Fluid
 	type kv struct{ key, value string }
 	items := []kv{
@@ -234,13 +236,13 @@ func reportContent(c *common, w int) ([]string, []int) {
 	}
 	if len(r.CCE) > 0 {
 		if in.yErr == nil {
-			out = append(out, cell(fmt.Sprintf("     CCE Y-function: Y = %s + %s·p (p psia), r² %s over %d points", sig(in.yfit.A, 4), sig(in.yfit.B, 4), num(in.yfit.R2, 4), len(in.yfit.Points)), w))
+			out = append(out, wrap(fmt.Sprintf("     CCE Y-function: Y = %s + %s·p (p psia), r² %s over %d points", sig(in.yfit.A, 4), sig(in.yfit.B, 4), num(in.yfit.R2, 4), len(in.yfit.Points)), w, "       ")...)
 		}
 		if in.psatErr == nil {
-			out = append(out, cell(fmt.Sprintf("     saturation pressure implied by the CCE: %s psia (reported %s, %s %%)", num(in.psat.Psat, 0), num(in.psat.Reported, 0), signed(100*(in.psat.Psat/in.psat.Reported-1))), w))
+			out = append(out, wrap(fmt.Sprintf("     saturation pressure implied by the CCE: %s psia (reported %s, %s %%)", num(in.psat.Psat, 0), num(in.psat.Reported, 0), signed(100*(in.psat.Psat/in.psat.Reported-1))), w, "       ")...)
 		}
 		if in.coErr == nil {
-			out = append(out, cell(fmt.Sprintf("     undersaturated co from the CCE: %s·1e-6/psi at Pb, %s·1e-6/psi at %s psia", num(in.co.Co(fl.Pb)*1e6, 2), num(in.co.Co(in.co.Pmax)*1e6, 2), num(in.co.Pmax, 0)), w))
+			out = append(out, wrap(fmt.Sprintf("     undersaturated co from the CCE: %s at Pb, %s at %s\u00a0psia (1e-6/psi)", num(in.co.Co(fl.Pb)*1e6, 2), num(in.co.Co(in.co.Pmax)*1e6, 2), num(in.co.Pmax, 0)), w, "       ")...)
 		}
 	}
 	if s.tuningNote != "" {

@@ -148,7 +148,7 @@ func (t tablesScreen) view(c *common, w, h int) string {
 	if w < 100 {
 		title, tail = "Black-oil table", ""
 	}
-	head = append(head, wrap(st.Title.Render(title)+fmt.Sprintf("  %s\u00a0°F · tuned Pb %s\u00a0psia · Rsb %s\u00a0scf/STB · %d saturated rows, %s to %s\u00a0psia%s",
+	head = append(head, wrap(st.Title.Render(title)+fmt.Sprintf("  at %s\u00a0°F · tuned Pb %s\u00a0psia · Rsb %s\u00a0scf/STB · %d saturated rows, %s to %s\u00a0psia%s",
 		num(m.Oil.Temperature, 0), num(m.Pb, 1), num(m.Rsb, 0), len(td.rows), num(td.table.Rows[0].Pressure, 1), num(td.table.PMax, 0), tail), w, "  ")...)
 	var fams []string
 	for _, p := range s.props {
