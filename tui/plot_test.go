@@ -105,4 +105,3 @@ func TestTicks(t *testing.T) {
 		t.Errorf("fmtTick(2000) = %q", s)
 	}
 }
-
