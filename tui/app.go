@@ -111,6 +111,7 @@ func WithRankDelay(d time.Duration) Option { return func(c *config) { c.rankDela
 type Model struct {
 	c         *common
 	keys      globalKeys
+	helpKeys  helpKeys
 	active    screen
 	report    reportScreen
 	families  familiesScreen
@@ -154,7 +155,7 @@ func New(opts ...Option) Model {
 	h.ShortSeparator = " · "
 	m := Model{
 		c:    &common{width: 80, height: 24, styles: st, s: s},
-		keys: newGlobalKeys(), active: screenMatch, help: h, load: cfg.load, exporters: cfg.exporters,
+		keys: newGlobalKeys(), helpKeys: newHelpKeys(), active: screenMatch, help: h, load: cfg.load, exporters: cfg.exporters,
 		report: newReportScreen(), families: newFamiliesScreen(), match: newMatchScreen(),
 		tables: newTablesScreen(cfg.exporters), prompt: newPrompt(cfg.renderer),
 	}
@@ -215,12 +216,14 @@ func (m Model) onKey(msg tea.KeyMsg) (tea.Model, tea.Cmd) {
 		case key.Matches(msg, m.keys.Quit):
 			m.quitting = true
 			return m, tea.Quit
-		case key.Matches(msg, m.keys.Help), msg.Type == tea.KeyEsc:
+		case key.Matches(msg, m.helpKeys.Close):
 			m.showHelp = false
-		case msg.Type == tea.KeyDown:
+		case key.Matches(msg, m.helpKeys.Down):
 			m.helpTop = min(m.helpTop+1, max(0, len(m.helpLines(m.c.width))-(m.c.height-5)))
-		case msg.Type == tea.KeyUp:
+		case key.Matches(msg, m.helpKeys.Up):
 			m.helpTop = max(0, m.helpTop-1)
+		default:
+			m.flash = "the help is open: " + m.helpKeys.Close.Help().Key + " closes it"
 		}
 		return m, nil
 	}
@@ -524,7 +527,7 @@ func (m Model) shortHelp() string {
 		ks = m.tables.keys.ShortHelp()
 	}
 	if m.showHelp {
-		ks = nil
+		return m.help.ShortHelpView(append(m.helpKeys.ShortHelp(), m.keys.Quit))
 	}
 	ks = append(ks, m.keys.Next, m.keys.Help, m.keys.Quit)
 	return m.help.ShortHelpView(ks)
@@ -541,7 +544,7 @@ func (m Model) helpView(w, h int) string {
 	room := max(1, h-1)
 	top := min(m.helpTop, len(lines)-room)
 	out := append([]string(nil), lines[top:top+room]...)
-	return strings.Join(append(out, st.Dim.Render(fmt.Sprintf("── ↑/↓ scroll (%d–%d of %d) · ? or esc closes", top+1, top+room, len(lines)))), "\n")
+	return strings.Join(append(out, st.Dim.Render(fmt.Sprintf("── %s scroll (%d–%d of %d) · %s closes", "↑/↓", top+1, top+room, len(lines), m.helpKeys.Close.Help().Key))), "\n")
 }
 
 // helpLines are the lines of the help overlay at width w.
@@ -570,7 +573,9 @@ func (m Model) helpLines(w int) []string {
 	for _, t := range terms {
 		lines = append(lines, wrap(st.Bold.Render(t[0])+" · "+t[1], w, "    ")...)
 	}
-	return append(lines, "", st.Dim.Render("? or esc closes this help"))
+	lines = append(lines, "", st.Header.Render("In this help"))
+	lines = append(lines, strings.Split(m.help.FullHelpView(m.helpKeys.FullHelp()), "\n")...)
+	return lines
 }
 
 // terms explains the words the screens use.
@@ -579,6 +584,7 @@ var terms = [][2]string{
 	{"LOO", "leave-one-out AARE: each point refitted without itself and then predicted; the honest error of a rung"},
 	{"depth", "the rung of the tuning ladder: published (no parameter), multiplier, shape (pb: a bend of Rs below Pb; others: a shift), refit (the family's own coefficients, held near their published values); by LOO = the rung with the smallest LOO, a deeper one only when it wins clearly; d sets one"},
 	{"pressure scale", "pb: fixed by the report's bubble point, so the tuned Pb equals it exactly"},
+	{"ext", "Tables: a saturated row above the tuned Pb, an oil holding more gas than the report's, from the tuned solution-gas pair continued (simulators need it where gas dissolves again); no lab data stands behind it"},
 	{"separator basis", "DL volumes and GORs converted to the selected separator test (Bo = Bod·Bofb/Bodb); the tuning uses these"},
 }
 

@@ -736,3 +736,32 @@ func TestQCErrorOpensReport(t *testing.T) {
 		t.Errorf("opens on %v:\n%s", m.active, m.View())
 	}
 }
+
+// The help is drawn from the key bindings and holds the cautions (DESIGN.md §8); while it is
+// open, its own keys scroll and close it, and a screen key says how to close it instead of
+// doing nothing (behaviour).
+func TestHelpKeysAndCautions(t *testing.T) {
+	m := newTest(t, 80, 24)
+	m = press(t, m, "4", "?")
+	if !m.showHelp {
+		t.Fatal("? did not open the help")
+	}
+	all := strings.Join(m.helpLines(80), "\n")
+	for _, want := range []string{"Cautions", "valid only near the data", m.tables.keys.SaveTuning.Help().Desc, m.helpKeys.Close.Help().Desc} {
+		if !strings.Contains(all, want) {
+			t.Errorf("the help lacks %q", want)
+		}
+	}
+	m = press(t, m, "tab")
+	if !m.showHelp || m.active != screenTables || !strings.Contains(m.statusLine(), "closes it") {
+		t.Errorf("tab in the help: help %v, screen %v, status %q", m.showHelp, m.active, m.statusLine())
+	}
+	m = press(t, m, "j", "j")
+	if m.helpTop != 2 {
+		t.Errorf("j twice scrolled the help to %d, want 2", m.helpTop)
+	}
+	m = press(t, m, "esc")
+	if m.showHelp || m.active != screenTables {
+		t.Errorf("esc: help %v, screen %v", m.showHelp, m.active)
+	}
+}

@@ -31,6 +31,23 @@ func (k globalKeys) FullHelp() [][]key.Binding {
 	return [][]key.Binding{{k.Report, k.Families, k.Match, k.Tables}, {k.Next, k.Prev, k.Help, k.Quit}}
 }
 
+// helpKeys work while the help is open (every other key is ignored then).
+type helpKeys struct {
+	Up, Down, Close key.Binding
+}
+
+func newHelpKeys() helpKeys {
+	return helpKeys{
+		Up:    key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "scroll up")),
+		Down:  key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "scroll down")),
+		Close: key.NewBinding(key.WithKeys("?", "esc"), key.WithHelp("?/esc", "close the help")),
+	}
+}
+
+func (k helpKeys) ShortHelp() []key.Binding { return []key.Binding{k.Up, k.Down, k.Close} }
+
+func (k helpKeys) FullHelp() [][]key.Binding { return [][]key.Binding{{k.Up, k.Down, k.Close}} }
+
 // scrollKeys move through a long list or text.
 type scrollKeys struct {
 	Up, Down, PageUp, PageDown, Top, Bottom key.Binding

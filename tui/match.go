@@ -121,9 +121,20 @@ func (m matchScreen) view(c *common, w, h int) string {
 		return strings.Join(lines, "\n")
 	}
 	loss := string(s.loss)
-	head := fmt.Sprintf("%s   %s %s · depth %s · %s errors", title, st.Dim.Render("family"), st.Bold.Render(r.Family), depthText(s, p, r), loss)
+	busy := ""
 	if s.busy[p] {
-		head += "  " + st.Busy.Render("refitting…")
+		busy = "  " + st.Busy.Render("refitting…")
+	}
+	// Narrow windows drop the words that the layout makes clear, never the values.
+	head := fmt.Sprintf("%s   %s %s · depth %s · %s errors", title, st.Dim.Render("family"), st.Bold.Render(r.Family), depthText(s, p, r), loss) + busy
+	if lipgloss.Width(head) > w {
+		head = fmt.Sprintf("%s  %s · depth %s · %s", title, st.Bold.Render(r.Family), depthText(s, p, r), loss) + busy
+	}
+	if lipgloss.Width(head) > w {
+		head = fmt.Sprintf("%s  %s · %s · %s", title, st.Bold.Render(r.Family), depthText(s, p, r), loss) + busy
+	}
+	if lipgloss.Width(head) > w { // the objective goes last: it is the same for every property
+		head = fmt.Sprintf("%s  %s · %s", title, st.Bold.Render(r.Family), depthText(s, p, r)) + busy
 	}
 	bottom := m.bottomLines(c, p, r, w, h)
 	topH := max(5, h-1-len(bottom))
