@@ -765,3 +765,24 @@ func TestHelpKeysAndCautions(t *testing.T) {
 		t.Errorf("esc: help %v, screen %v", m.showHelp, m.active)
 	}
 }
+
+// End on the Tables screen shows the last row, and up from there moves at once (behaviour).
+func TestTablesEndShowsLastRow(t *testing.T) {
+	m := newTest(t, 80, 24)
+	m = press(t, m, "4", "end")
+	rows := m.c.s.table.rows
+	last := num(rows[len(rows)-1].st.Pressure, 1)
+	n := len(m.tables.lines(m.c, 80))
+	v := m.View()
+	if !strings.Contains(v, "ext   "+last) && !strings.Contains(v, " "+last+" ") {
+		t.Errorf("end: the last row (%s psia) is not shown:\n%s", last, v)
+	}
+	if !strings.Contains(v, fmt.Sprintf("–%d of %d ──", n, n)) {
+		t.Errorf("end: the scroll line does not end at row %d:\n%s", n, v)
+	}
+	top := m.tables.top
+	m = press(t, m, "up")
+	if m.tables.top != top-1 {
+		t.Errorf("up after end: top %d, want %d", m.tables.top, top-1)
+	}
+}

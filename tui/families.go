@@ -45,7 +45,10 @@ func (f familiesScreen) update(msg tea.KeyMsg, c *common) (familiesScreen, tea.C
 	case key.Matches(msg, f.keys.Down):
 		f.cursor[p] = min(len(es)-1, cur+1)
 	case key.Matches(msg, f.keys.Pick):
-		if len(es) == 0 || !s.started {
+		if !s.started {
+			return f, nil, "wait for the first fit"
+		}
+		if len(es) == 0 {
 			return f, nil, ""
 		}
 		e := es[cur]
@@ -60,7 +63,10 @@ func (f familiesScreen) update(msg tea.KeyMsg, c *common) (familiesScreen, tea.C
 		s.compare[p] = slices.DeleteFunc(s.compare[p], func(x string) bool { return x == e.Family })
 		return f, tea.Batch(s.refit(p), s.requestCompare(p)), ""
 	case key.Matches(msg, f.keys.Compare):
-		if len(es) == 0 || !s.started {
+		if !s.started {
+			return f, nil, "wait for the first fit"
+		}
+		if len(es) == 0 {
 			return f, nil, ""
 		}
 		e := es[cur]

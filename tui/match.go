@@ -305,7 +305,7 @@ func (m matchScreen) plotLines(c *common, p fit.PropertyID, r fit.Result, w, h i
 		}
 		style := st.overlayStyle(i)
 		pl.series = append(pl.series, plotSeries{xs: cs.ps, ys: scaled(cf.curve), pattern: patDashed, style: style})
-		legend = append(legend, style.Render("╌╌ "+f+" "+num(cf.res.Tuned.AARE, 2)+"%"))
+		legend = append(legend, style.Render("╌╌ "+f+" "+num(cf.res.Tuned.AARE, 2)+"\u00a0%"))
 	}
 	if cs.published != nil {
 		pl.series = append(pl.series, plotSeries{xs: cs.ps, ys: scaled(cs.published), pattern: patDotted, style: st.Published})

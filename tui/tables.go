@@ -27,8 +27,6 @@ func newTablesScreen(ex map[ExportKind]Exporter) tablesScreen {
 }
 
 func (t tablesScreen) update(msg tea.KeyMsg, c *common) (tablesScreen, *ExportKind, string) {
-	n := len(t.lines(c, c.width))
-	page := max(1, c.height-10)
 	ask := func(k ExportKind) (tablesScreen, *ExportKind, string) {
 		switch {
 		case c.s.report == nil || !c.s.started:
@@ -38,6 +36,7 @@ func (t tablesScreen) update(msg tea.KeyMsg, c *common) (tablesScreen, *ExportKi
 		}
 		return t, &k, ""
 	}
+	n, page := t.visibleRows(c)
 	switch {
 	case key.Matches(msg, t.keys.Up):
 		t.top--
@@ -53,6 +52,7 @@ func (t tablesScreen) update(msg tea.KeyMsg, c *common) (tablesScreen, *ExportKi
 		t.top = n
 	case key.Matches(msg, t.keys.Branches):
 		t.branches = !t.branches
+		n, page = t.visibleRows(c)
 	case key.Matches(msg, t.keys.SaveTuning):
 		return ask(ExportTuning)
 	case key.Matches(msg, t.keys.SaveCSV):
@@ -62,7 +62,7 @@ func (t tablesScreen) update(msg tea.KeyMsg, c *common) (tablesScreen, *ExportKi
 	case key.Matches(msg, t.keys.SaveHTML):
 		return ask(ExportHTML)
 	}
-	t.top = max(0, min(t.top, n-1))
+	t.top = max(0, min(t.top, n-page))
 	return t, nil, ""
 }
 
@@ -136,13 +136,52 @@ func (t tablesScreen) view(c *common, w, h int) string {
 		return noTuningView(c, w)
 	}
 	td := s.table
-	var head []string
 	switch {
 	case !s.started || (td.model == nil && td.err == nil):
 		return st.Dim.Render("building the table of the tuned model…")
 	case td.err != nil:
 		return strings.Join(append([]string{st.Err.Render("The black-oil table of the tuned model cannot be built")}, wrap(td.err.Error(), w, "  ")...), "\n")
 	}
+	head, foot := t.head(c, w, h), t.footer(c, w)
+	rows := t.lines(c, w)
+	room := rowRoom(len(rows), h-len(head)-len(foot))
+	top := max(0, min(t.top, len(rows)-room))
+	body := append([]string(nil), rows[top:min(len(rows), top+room)]...)
+	if len(rows) > room {
+		body = append(body, st.Dim.Render(cell(fmt.Sprintf("  ── rows %d–%d of %d ──", top+1, top+len(body), len(rows)), w)))
+	}
+	for len(body) < h-len(head)-len(foot) {
+		body = append(body, "")
+	}
+	out := append(head, body...)
+	out = append(out, foot...)
+	return strings.Join(out, "\n")
+}
+
+// rowRoom is how many table rows fit in free lines, one of them kept for the "rows a–b of n"
+// line when not all rows fit.
+func rowRoom(rows, free int) int {
+	if rows > free {
+		return max(1, free-1)
+	}
+	return max(1, free)
+}
+
+// visibleRows is how many rows the screen shows in the window (0 before the table exists).
+func (t tablesScreen) visibleRows(c *common) (rows, room int) {
+	if c.s.dsErr != nil || c.s.table.model == nil || c.s.table.err != nil {
+		return 0, 1
+	}
+	w, h := c.width, c.height-4 // the body's height: View's header, tabs, status and help lines
+	n := len(t.lines(c, w))
+	return n, rowRoom(n, h-len(t.head(c, w, h))-len(t.footer(c, w)))
+}
+
+// head is the table's title, families and column titles.
+func (t tablesScreen) head(c *common, w, h int) []string {
+	s, st := c.s, c.styles
+	td := s.table
+	var head []string
 	m := td.model
 	title, tail := "Black-oil table of the tuned model", " · as the table files hold it"
 	if w < 100 {
@@ -172,20 +211,7 @@ func (t tablesScreen) view(c *common, w, h int) string {
 	head = append(head, st.Header.Render(cell(hb.String(), w)))
 	head = append(head, st.Dim.Render(cell("     Rs scf/STB · Bo rb/STB · ρo lbm/ft3 · co 1e-6/psi above Pb · Bg rcf/scf", w)))
 
-	foot := t.footer(c, w)
-	rows := t.lines(c, w)
-	room := max(1, h-len(head)-len(foot))
-	top := max(0, min(t.top, len(rows)-room))
-	body := rows[top:min(len(rows), top+room)]
-	if len(rows) > room && len(body) > 0 {
-		body[len(body)-1] = st.Dim.Render(cell(fmt.Sprintf("  ── rows %d–%d of %d ──", top+1, top+len(body)-1, len(rows)), w))
-	}
-	for len(body) < room {
-		body = append(body, "")
-	}
-	out := append(head, body...)
-	out = append(out, foot...)
-	return strings.Join(out, "\n")
+	return head
 }
 
 // footer explains the row marks and the save keys, and names what was last saved.
