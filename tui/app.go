@@ -313,6 +313,14 @@ func (m Model) onStarted(msg startedMsg) (tea.Model, tea.Cmd) {
 	if msg.note != "" && s.tuningPath != "" {
 		s.tuningNote = msg.note
 	}
+	// Say what became of the --tuning file on whatever screen opens.
+	if s.tuningPath != "" && m.flash == "" {
+		if msg.applied {
+			m.flash = s.tuningNote
+		} else if s.tuningNote != "" {
+			m.flash, m.flashErr = s.tuningNote+" (the Report screen, 1, says why)", true
+		}
+	}
 	for p, idx := range msg.exclude {
 		s.excluded[p] = append([]int(nil), idx...)
 	}

@@ -323,7 +323,10 @@ func TestSaveTuningFileAndReopen(t *testing.T) {
 	if !s2.isExcluded(fit.Bo, 1) {
 		t.Error("the left-out point is not left out after reopening")
 	}
-	if !strings.Contains(press(t, m2, "1").View(), "families and parameters from the tuning file") {
+	if !strings.Contains(m2.View(), "tuning file applied") {
+		t.Error("the screen that opens does not say the tuning file was applied")
+	}
+	if !strings.Contains(press(t, m2, "1").View(), "tuning file applied: its families, rungs and parameters") {
 		t.Error("the Report screen does not say the tuning file was applied")
 	}
 }
@@ -337,6 +340,9 @@ func TestTuningFileOfOtherReportNotApplied(t *testing.T) {
 	m2 := newTest(t, 120, 40, WithTuningFile(path, false))
 	if !strings.Contains(m2.c.s.tuningNote, "not applied") || !strings.Contains(m2.c.s.tuningNote, "different report") {
 		t.Errorf("note %q", m2.c.s.tuningNote)
+	}
+	if !strings.Contains(m2.statusLine(), "not applied") {
+		t.Errorf("the status line does not say the tuning file was not applied: %q", m2.statusLine())
 	}
 	if len(m2.c.s.results) == 0 {
 		t.Error("the report is not tuned afresh")

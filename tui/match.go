@@ -163,7 +163,7 @@ func (m matchScreen) tableLines(c *common, p fit.PropertyID, r fit.Result, w, h 
 	if wide {
 		hdr = fmt.Sprintf("  %s %s %s %s %s %s", cellRight("p psia", 6), cellRight("lab", 9), cellRight("published", 9), cellRight("tuned", 9), cellRight("publ %", 7), cellRight("err %", 6))
 	}
-	lines := []string{st.Header.Render(cell(hdr, w)), st.Dim.Render(cell("  values in "+u, w))}
+	lines := []string{st.Header.Render(cell(hdr, w)), st.Dim.Render(cell(valuesIn(u), w))}
 	rows := len(r.Residuals)
 	room := h - 3 // header, unit line, legend
 	cur := min(m.cursor[p], rows-1)
@@ -490,6 +490,14 @@ func unitOf(p fit.PropertyID, r fit.Result) string {
 	return "dimensionless"
 }
 
+// valuesIn is the table's unit line.
+func valuesIn(u string) string {
+	if u == "dimensionless" {
+		return "  values dimensionless"
+	}
+	return "  values in " + u
+}
+
 // scaleOf is the display scale of a property's values: compressibility in 1e-6/psi.
 func scaleOf(p fit.PropertyID) float64 {
 	if p == fit.Co {
@@ -505,7 +513,7 @@ func decimalsOf(q string) int {
 		return 0
 	case "Bo", "Z", "z":
 		return 4
-	case "co":
+	case "co", "co avg":
 		return 2
 	}
 	return 3

@@ -246,7 +246,7 @@ func reportContent(c *common, w int) ([]string, []int) {
 		}
 	}
 	if s.tuningNote != "" {
-		out = append(out, wrap("     tuning file: "+s.tuningNote, w, "       ")...)
+		out = append(out, wrap("     "+s.tuningNote+" ("+s.tuningPath+")", w, "       ")...)
 	}
 	out = append(out, "")
 

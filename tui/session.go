@@ -332,7 +332,7 @@ func startCmd(ds *fit.Dataset, r *lab.Report, tf *export.TuningFile, force bool)
 				msg.note = "tuning file not applied: " + err.Error()
 			} else {
 				msg.results, msg.loss, msg.exclude, msg.applied = res, fo.Loss, fo.Excluded, true
-				msg.note = "families and parameters from the tuning file"
+				msg.note = "tuning file applied: its families, rungs and parameters"
 				// The file fixes each property's rung: rank the families at it too.
 				pd := map[fit.PropertyID]fit.Depth{}
 				for p, r := range res {

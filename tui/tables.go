@@ -2,6 +2,7 @@ package tui
 
 import (
 	"fmt"
+	"path/filepath"
 	"strings"
 
 	"github.com/charmbracelet/bubbles/key"
@@ -236,6 +237,9 @@ func (t tablesScreen) footer(c *common, w int) []string {
 		if b.Enabled() {
 			txt := st.HelpKey.Render(b.Help().Key) + " " + k.String()
 			if p, ok := t.saved[k]; ok {
+				if w < 100 { // the status line named the whole path when it was written
+					p = filepath.Base(p)
+				}
 				txt += st.Good.Render(" ✓ " + p)
 			}
 			parts = append(parts, txt)
