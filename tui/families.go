@@ -56,7 +56,7 @@ func (f familiesScreen) update(msg tea.KeyMsg, c *common) (familiesScreen, tea.C
 			return f, nil, e.Family + " cannot be evaluated for this report"
 		}
 		if s.choice[p] == e.Family {
-			return f, nil, ""
+			return f, nil, e.Family + " is the family in use already"
 		}
 		s.choice[p] = e.Family
 		// The family in use is not also compared with itself.

@@ -53,8 +53,11 @@ func (m matchScreen) update(msg tea.KeyMsg, c *common) (matchScreen, tea.Cmd, st
 		}
 		return m, s.refit(p), ""
 	case key.Matches(msg, m.keys.RestoreAll):
-		if len(s.excluded[p]) == 0 || !s.started {
-			return m, nil, ""
+		if !s.started {
+			return m, nil, "wait for the first fit"
+		}
+		if len(s.excluded[p]) == 0 {
+			return m, nil, "every point of " + string(p) + " is in the fit already"
 		}
 		s.excluded[p] = nil
 		return m, s.refit(p), ""
