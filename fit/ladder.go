@@ -48,12 +48,14 @@ func (pr *problem) layoutFor(d Depth) (layout, string) {
 			l.exp = true
 		} else if pr.prop == MuUnder {
 			return l, "a shift would break the viscosity's continuity at Pb"
+		} else if pr.prop == Z {
+			return l, "a shift would break the ideal-gas limit (Z → 1 as the pressure falls)"
 		} else {
 			l.shift = true
 		}
 	case DepthRefit:
 		l.anchor, l.mult = pr.anchored, !pr.anchored
-		l.shift = pr.prop != Pb && pr.prop != MuUnder
+		l.shift = pr.prop != Pb && pr.prop != MuUnder && pr.prop != Z
 		if len(pr.coef0) == 0 {
 			return l, "the family declares no coefficients to refit"
 		}
