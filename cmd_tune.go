@@ -229,8 +229,9 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 	fs := newFlagSet("tune", "labmatch tune DIR [--pb ID --bo ID --co ID --mu-dead ID --mu-sat ID --mu-under ID --z ID]\n                     [--depth D] [--loss L] [--exclude LIST] [--json] [--save F] [--tuning F] [--force]",
 		`Tune the chosen family of every property (default: the best-ranked) to the report on a ladder
 of depths: published (no parameter), multiplier (pb: the anchor on the report's Pb alone),
-shape (pb: a bend of Rs(p) below Pb; others: multiplier and shift) and refit (the family's
-own coefficients, held near the published values). For every rung it prints the training and
+shape (pb: a bend of Rs(p) below Pb; others: multiplier and shift, none for mu_under and z,
+where a shift would break the continuity at Pb or the ideal-gas limit) and refit (the
+family's own coefficients, held near the published values). For every rung it prints the training and
 the leave-one-out AARE (each point left out in turn, refitted, predicted); by default the
 rung with the smallest leave-one-out error is used, a deeper one only when it wins by 10 %
 and 0.05 points. At every tuned depth Pb(Rsb) equals the report's Pb and the pair Pb(Rs),
