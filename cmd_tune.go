@@ -139,6 +139,18 @@ func loadDataset(arg string, stderr io.Writer) (*lab.Report, *fit.Dataset, int) 
 		fmt.Fprintln(stderr, err)
 		return nil, nil, exitData
 	}
+	// A QC error does not stop the tuning (the engineer may know better), but it is said, as
+	// a mistyped stage otherwise shows only as a poor fit.
+	for _, f := range lab.Check(r) {
+		if f.Severity != lab.Error {
+			continue
+		}
+		where := f.File
+		if f.Row > 0 {
+			where = fmt.Sprintf("%s line %d", f.File, f.Row)
+		}
+		fmt.Fprintf(stderr, "warning: QC error in %s (%s): %s; the data are used as read (labmatch check lists every finding)\n", where, f.Code, f.Message)
+	}
 	if ds.Name == "" {
 		ds.Name = arg
 	}
