@@ -412,7 +412,11 @@ func printResult(w io.Writer, res fit.Result) {
 	}
 	tw.Flush()
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintf(tw, "  \tpoints\tAARE %%\tbias %%\tmax |RE| %%\tRMSE [%s]\n", res.Tuned.RMSEUnit)
+	rmse := "RMSE"
+	if res.Tuned.RMSEUnit != "" {
+		rmse += " [" + res.Tuned.RMSEUnit + "]"
+	}
+	fmt.Fprintf(tw, "  \tpoints\tAARE %%\tbias %%\tmax |RE| %%\t%s\n", rmse)
 	fmt.Fprintf(tw, "  published\t%d\t%.2f\t%+.2f\t%.2f\t%.4g\n", res.Published.Points, res.Published.AARE, res.Published.Bias, res.Published.MaxARE, res.Published.RMSE)
 	fmt.Fprintf(tw, "  tuned\t%d\t%.2f\t%+.2f\t%.2f\t%.4g\n", res.Tuned.Points, res.Tuned.AARE, res.Tuned.Bias, res.Tuned.MaxARE, res.Tuned.RMSE)
 	tw.Flush()
