@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"math"
 
 	"labmatch/lab"
 )
@@ -61,7 +62,7 @@ func printProcessing(w io.Writer, r *lab.Report) {
 		fmt.Fprintf(w, "CCE Y-function: Y = %.4g + %.4g·p (p in psia), r² %.4f over %d points\n", y.A, y.B, y.R2, len(y.Points))
 	}
 	if e, err := lab.ImpliedPsat(r.Fluid.Pb, r.CCE); err == nil {
-		fmt.Fprintf(w, "saturation pressure implied by the CCE: %.0f psia (reported %.0f, %+.2f %%)\n", e.Psat, e.Reported, 100*(e.Psat/e.Reported-1))
+		fmt.Fprintf(w, "saturation pressure implied by the CCE: %.0f psia (reported %.0f, %+.2f %%)\n", e.Psat, e.Reported, noNegZero(100*(e.Psat/e.Reported-1), 2))
 	}
 	if _, fit, err := lab.UndersaturatedCo(r.Fluid.Pb, r.CCE); err == nil {
 		note := ""
@@ -70,4 +71,13 @@ func printProcessing(w io.Writer, r *lab.Report) {
 		}
 		fmt.Fprintf(w, "undersaturated co from the CCE: %.3g 1/psi at Pb, %.3g 1/psi at %.0f psia%s\n", fit.Co(r.Fluid.Pb), fit.Co(fit.Pmax), fit.Pmax, note)
 	}
+}
+
+// noNegZero returns v, or 0 where v rounds to zero at the given decimals, so that "%+.2f" does
+// not print "-0.00".
+func noNegZero(v float64, decimals int) float64 {
+	if math.Abs(v) < 0.5*math.Pow(10, -float64(decimals)) {
+		return 0
+	}
+	return v
 }

@@ -139,6 +139,18 @@ func loadDataset(arg string, stderr io.Writer) (*lab.Report, *fit.Dataset, int) 
 		fmt.Fprintln(stderr, err)
 		return nil, nil, exitData
 	}
+	// A QC error does not stop the tuning (the engineer may know better), but it is said, as
+	// a mistyped stage otherwise shows only as a poor fit.
+	for _, f := range lab.Check(r) {
+		if f.Severity != lab.Error {
+			continue
+		}
+		where := f.File
+		if f.Row > 0 {
+			where = fmt.Sprintf("%s line %d", f.File, f.Row)
+		}
+		fmt.Fprintf(stderr, "warning: QC error in %s (%s): %s; the data are used as read (labmatch check lists every finding)\n", where, f.Code, f.Message)
+	}
 	if ds.Name == "" {
 		ds.Name = arg
 	}
@@ -229,8 +241,9 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 	fs := newFlagSet("tune", "labmatch tune DIR [--pb ID --bo ID --co ID --mu-dead ID --mu-sat ID --mu-under ID --z ID]\n                     [--depth D] [--loss L] [--exclude LIST] [--json] [--save F] [--tuning F] [--force]",
 		`Tune the chosen family of every property (default: the best-ranked) to the report on a ladder
 of depths: published (no parameter), multiplier (pb: the anchor on the report's Pb alone),
-shape (pb: a bend of Rs(p) below Pb; others: multiplier and shift) and refit (the family's
-own coefficients, held near the published values). For every rung it prints the training and
+shape (pb: a bend of Rs(p) below Pb; others: multiplier and shift, none for mu_under and z,
+where a shift would break the continuity at Pb or the ideal-gas limit) and refit (the
+family's own coefficients, held near the published values). For every rung it prints the training and
 the leave-one-out AARE (each point left out in turn, refitted, predicted); by default the
 rung with the smallest leave-one-out error is used, a deeper one only when it wins by 10 %
 and 0.05 points. At every tuned depth Pb(Rsb) equals the report's Pb and the pair Pb(Rs),
@@ -399,7 +412,11 @@ func printResult(w io.Writer, res fit.Result) {
 	}
 	tw.Flush()
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintf(tw, "  \tpoints\tAARE %%\tbias %%\tmax |RE| %%\tRMSE [%s]\n", res.Tuned.RMSEUnit)
+	rmse := "RMSE"
+	if res.Tuned.RMSEUnit != "" {
+		rmse += " [" + res.Tuned.RMSEUnit + "]"
+	}
+	fmt.Fprintf(tw, "  \tpoints\tAARE %%\tbias %%\tmax |RE| %%\t%s\n", rmse)
 	fmt.Fprintf(tw, "  published\t%d\t%.2f\t%+.2f\t%.2f\t%.4g\n", res.Published.Points, res.Published.AARE, res.Published.Bias, res.Published.MaxARE, res.Published.RMSE)
 	fmt.Fprintf(tw, "  tuned\t%d\t%.2f\t%+.2f\t%.2f\t%.4g\n", res.Tuned.Points, res.Tuned.AARE, res.Tuned.Bias, res.Tuned.MaxARE, res.Tuned.RMSE)
 	tw.Flush()

@@ -267,3 +267,22 @@ func TestCalcOilAtBubblePoint(t *testing.T) {
 		t.Errorf("at the bubble point: p %.1f, Pb %.1f (want about 2181), Rs %.1f (want 751)", m.P, m.Pb, m.Rs)
 	}
 }
+
+// A QC error does not stop tune, rank or tables, but each says so on stderr with the file, the
+// line and the finding; a clean report gives no such warning (behaviour test on the mutated
+// demo report testdata/mutated/swapped-digit, dl.csv line 9).
+func TestQCErrorSaidWhenTuning(t *testing.T) {
+	for _, args := range [][]string{
+		{"tune", "testdata/mutated/swapped-digit"},
+		{"rank", "testdata/mutated/swapped-digit"},
+		{"tables", "testdata/mutated/swapped-digit"},
+	} {
+		code, _, stderr := runCLI(t, args...)
+		if code != exitOK || !strings.Contains(stderr, "QC error in dl.csv line 9 (dl-rs-rising)") {
+			t.Errorf("%v: exit %d, stderr %q; want exit 0 and the QC error named", args, code, stderr)
+		}
+	}
+	if _, _, stderr := runCLI(t, "tune", "demo:tr3-black"); strings.Contains(stderr, "QC error") {
+		t.Errorf("clean demo report: %q", stderr)
+	}
+}

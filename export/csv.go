@@ -58,6 +58,7 @@ func WriteCSV(w io.Writer, t *Table, u Units) error {
 	for _, l := range headerLines(t, c) {
 		fmt.Fprintf(&b, "# %s\n", l)
 	}
+	b.WriteString("# co: on saturated rows the total compressibility of the oil with the gas it releases (McCain, Rollins and Villena 1988); on undersaturated rows the oil's own, as tuned\n")
 	cw := csv.NewWriter(&b)
 	head := []string{"row"}
 	for _, col := range csvColumns {

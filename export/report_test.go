@@ -50,7 +50,7 @@ func walkHTML(n *html.Node, f *htmlFacts, section string) {
 			}
 		}
 		switch n.Data {
-		case "script", "iframe", "object", "embed", "link", "img", "base", "frame", "audio", "video", "source":
+		case "script", "iframe", "object", "embed", "link", "img", "base", "frame", "audio", "source", "track":
 			f.scripts = append(f.scripts, n.Data)
 		case "svg":
 			f.svgs = append(f.svgs, section)

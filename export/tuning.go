@@ -1,6 +1,7 @@
 package export
 
 import (
+	"bytes"
 	"encoding/json"
 	"errors"
 	"fmt"
@@ -9,6 +10,7 @@ import (
 	"slices"
 	"sort"
 	"strings"
+	"unicode/utf8"
 
 	"labmatch/fit"
 	"labmatch/lab"
@@ -138,7 +140,7 @@ func LoadTuning(path string) (TuningFile, error) {
 	}
 	var tf TuningFile
 	if err := json.Unmarshal(data, &tf); err != nil {
-		return TuningFile{}, fmt.Errorf("export: %s: not a tuning file: %w", path, err)
+		return TuningFile{}, fmt.Errorf("export: %s%s: not a tuning file: %w", path, jsonPosition(data, err), err)
 	}
 	if tf.FormatVersion != 1 && tf.FormatVersion != FormatVersion {
 		return TuningFile{}, fmt.Errorf("export: %s: format version %d, this labmatch reads 1 and %d", path, tf.FormatVersion, FormatVersion)
@@ -150,6 +152,30 @@ func LoadTuning(path string) (TuningFile, error) {
 		tf.upgrade()
 	}
 	return tf, nil
+}
+
+// jsonPosition gives ":line:column" of a JSON syntax or type error in data (the byte where
+// the decoder stopped), or "" when the error carries no offset.
+func jsonPosition(data []byte, err error) string {
+	var off int64
+	var se *json.SyntaxError
+	var te *json.UnmarshalTypeError
+	switch {
+	case errors.As(err, &se):
+		off = se.Offset
+		if strings.HasPrefix(se.Error(), "invalid character") {
+			off-- // the offset is past the character; point at it
+		}
+	case errors.As(err, &te):
+		off = te.Offset
+	default:
+		return ""
+	}
+	off = min(max(off, 0), int64(len(data)))
+	before := data[:off]
+	line := 1 + bytes.Count(before, []byte{'\n'})
+	col := 1 + utf8.RuneCount(before[bytes.LastIndexByte(before, '\n')+1:])
+	return fmt.Sprintf(":%d:%d", line, col)
 }
 
 // upgrade turns a validated version 1 file into the version 2 form: its mode becomes the

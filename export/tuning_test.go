@@ -157,3 +157,26 @@ func TestLoadTuningVersion1(t *testing.T) {
 		t.Errorf("pb parameters %+v, want the recorded ones", q)
 	}
 }
+
+// A tuning file that is not valid JSON, or holds a value of the wrong type, is refused with the
+// line and column where the decoder stopped (behaviour test).
+func TestLoadTuningErrorPosition(t *testing.T) {
+	dir := t.TempDir()
+	for _, tc := range []struct {
+		name, text, want string
+	}{
+		{"garbage", "garbage{", ":1:1: not a tuning file"},
+		{"truncated", "{\n  \"format_version\": 2,\n  \"options\": {", ":3:15: not a tuning file"},
+		{"wrong type", "{\n  \"format_version\": \"two\"\n}", ":2:26: not a tuning file"}, // just past the value
+		{"bad character", "{\n  \"format_version\": 2,\n  x\n}", ":3:3: not a tuning file"},
+	} {
+		p := filepath.Join(dir, tc.name+".json")
+		if err := os.WriteFile(p, []byte(tc.text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		_, err := LoadTuning(p)
+		if err == nil || !strings.Contains(err.Error(), p+tc.want) {
+			t.Errorf("%s: %v, want %q", tc.name, err, p+tc.want)
+		}
+	}
+}

@@ -48,12 +48,14 @@ func (pr *problem) layoutFor(d Depth) (layout, string) {
 			l.exp = true
 		} else if pr.prop == MuUnder {
 			return l, "a shift would break the viscosity's continuity at Pb"
+		} else if pr.prop == Z {
+			return l, "a shift would break the ideal-gas limit (Z → 1 as the pressure falls)"
 		} else {
 			l.shift = true
 		}
 	case DepthRefit:
 		l.anchor, l.mult = pr.anchored, !pr.anchored
-		l.shift = pr.prop != Pb && pr.prop != MuUnder
+		l.shift = pr.prop != Pb && pr.prop != MuUnder && pr.prop != Z
 		if len(pr.coef0) == 0 {
 			return l, "the family declares no coefficients to refit"
 		}
@@ -316,6 +318,13 @@ func multiplierFlags(prop PropertyID, q Params, l layout) []string {
 			fl = append(fl, fmt.Sprintf("the %s %.3f that honours the report's Pb is outside [%g, %g]: the family's bubble point is far from this oil's", name, m, FlagLowMult, FlagHighMult))
 		}
 	case !l.mult:
+	case len(l.coef) > 0:
+		// Beside refitted coefficients the multiplier trades against them: its distance
+		// from 1 says nothing about the family, but a multiplier pinned at its bound says
+		// the refit has moved far from the published correlation.
+		if m <= MinMultiplier*1.001 || m >= MaxMultiplier*0.999 {
+			fl = append(fl, fmt.Sprintf("%s %.3f is at its bound [%g, %g] beside the refitted coefficients: the refit is far from the published correlation", name, m, MinMultiplier, MaxMultiplier))
+		}
 	case m <= MinMultiplier*1.001 || m >= MaxMultiplier*0.999:
 		fl = append(fl, fmt.Sprintf("%s %.3f is at its bound [%g, %g]: this family cannot describe the oil", name, m, MinMultiplier, MaxMultiplier))
 	case m < FlagLowMult || m > FlagHighMult:

@@ -3,6 +3,7 @@ package fit
 import (
 	"math"
 	"math/rand/v2"
+	"strings"
 	"testing"
 
 	"labmatch/correlations"
@@ -189,6 +190,35 @@ func TestPbExactAndInverseAtEveryDepth(t *testing.T) {
 					t.Errorf("%s %s %s: Rs(Pb(%.6g)) = %.10g (%v)", s.ID, fam, res.Depth, want, got, err)
 				}
 			}
+		}
+	}
+}
+
+// TestMultiplierFlagsBesideRefit: a multiplier far from 1 is flagged as the family describing
+// the oil poorly only where the family's coefficients are the published ones; beside refitted
+// coefficients (which trade against it) only a multiplier pinned at its bound is remarked on.
+// Behaviour test; the bounds are DESIGN.md §5's [0.8, 1.25] and the transform's [0.5, 2].
+func TestMultiplierFlagsBesideRefit(t *testing.T) {
+	plain := layout{mult: true, shift: true}
+	refit := layout{mult: true, shift: true, coef: []int{0}}
+	for _, tc := range []struct {
+		l    layout
+		m    float64
+		want string // "" = no flag
+	}{
+		{plain, 1.0, ""},
+		{plain, 1.5, "describes this oil poorly"},
+		{plain, MaxMultiplier, "cannot describe the oil"},
+		{refit, 1.5, ""},
+		{refit, MaxMultiplier, "beside the refitted coefficients"},
+		{refit, MinMultiplier, "beside the refitted coefficients"},
+	} {
+		fl := multiplierFlags(Bo, Params{Multiplier: tc.m}, tc.l)
+		switch {
+		case tc.want == "" && len(fl) > 0:
+			t.Errorf("coef %v, m %g: flags %q, want none", tc.l.coef, tc.m, fl)
+		case tc.want != "" && (len(fl) != 1 || !strings.Contains(fl[0], tc.want)):
+			t.Errorf("coef %v, m %g: flags %q, want one containing %q", tc.l.coef, tc.m, fl, tc.want)
 		}
 	}
 }

@@ -76,6 +76,23 @@ func TestPublishedReportTuning(t *testing.T) {
 	}
 }
 
+// TestPublishedReportIdealGasLimit: the tuned Z of the published report's gas tends to 1 as the
+// pressure falls (common practice: every real gas is ideal in the limit), so the deck's Bg at
+// atmospheric pressure is the ideal gas's. The DL's Z of this report once chose a constant
+// shift that left Z at 1.026 at 14.65 psia.
+func TestPublishedReportIdealGasLimit(t *testing.T) {
+	_, res, m := tunedPublished(t)
+	for _, p := range []float64{14.65, 1} {
+		st, err := m.At(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(st.Z-1) > 0.005*p/14.65+1e-4 {
+			t.Errorf("z %s at %s: tuned Z at %g psia %.4f, want within %.4f of 1", res[Z].Family, res[Z].Depth, p, st.Z, 0.005*p/14.65+1e-4)
+		}
+	}
+}
+
 // The tuned model of the published report gives undersaturated branches that a simulator
 // accepts (common practice, the rules a black-oil table obeys): for oils with less and more gas
 // than the report's, Bo falls and the viscosity rises along each branch, although the report's

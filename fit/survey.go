@@ -749,17 +749,19 @@ func surveyStats(lab, pred []float64) SurveyStats {
 	return st
 }
 
-// sortSurveyFamilies orders families by cross-validated AARE, then published AARE, then id;
-// families without samples last.
+// sortSurveyFamilies orders families by cross-validated AARE (tuned AARE where there is none),
+// in 0.01 % steps as printed, then published AARE, then id; families without samples last. The
+// steps keep round-off from ordering families that tie, such as every family tuned to a single
+// sample (tuned AARE 0 up to 1e-14).
 func sortSurveyFamilies(fs []SurveyFamily) {
 	key := func(f SurveyFamily) float64 {
 		switch {
 		case f.Points == 0:
 			return math.Inf(1)
 		case f.CV.Points > 0:
-			return f.CV.AARE
+			return math.Round(f.CV.AARE * 100)
 		}
-		return f.Tuned.AARE
+		return math.Round(f.Tuned.AARE * 100)
 	}
 	sort.SliceStable(fs, func(a, b int) bool {
 		ka, kb := key(fs[a]), key(fs[b])

@@ -678,3 +678,26 @@ func BenchmarkSurveyRead10k(b *testing.B) {
 		}
 	}
 }
+
+// TestSurveyOneSampleOrder: with a single sample every family's multiplier fits it exactly, so
+// the tuned errors tie (up to round-off) and the families are ordered by their published error.
+// Behaviour test (the sample's values are invented).
+func TestSurveyOneSampleOrder(t *testing.T) {
+	sv, err := lab.ParseSurvey("one.csv", []byte("sample,temperature [degF],API,gas gravity,Rsb [scf/STB],Pb [psia]\nA,200,35,0.8,500,2000\n"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := RunSurvey(sv, SurveyOptions{Properties: []PropertyID{Pb}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(res.Properties) != 1 || len(res.Properties[0].Families) < 2 {
+		t.Fatalf("properties %+v", res.Properties)
+	}
+	fs := res.Properties[0].Families
+	for i := 1; i < len(fs); i++ {
+		if fs[i].Published.AARE < fs[i-1].Published.AARE {
+			t.Errorf("%s (published %.4g %%) after %s (%.4g %%)", fs[i].Family, fs[i].Published.AARE, fs[i-1].Family, fs[i-1].Published.AARE)
+		}
+	}
+}

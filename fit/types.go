@@ -171,7 +171,7 @@ type Depth string
 const (
 	DepthPublished  Depth = "published"  // the published correlation, no parameter
 	DepthMultiplier Depth = "multiplier" // pb: the anchor on the report's Pb alone; others: one multiplier
-	DepthShape      Depth = "shape"      // pb: a bend of Rs(p) below Pb; others: multiplier and shift
+	DepthShape      Depth = "shape"      // pb: a bend of Rs(p) below Pb; others: multiplier and shift (skipped for mu_under, z)
 	DepthRefit      Depth = "refit"      // the family's declared coefficients, regularised towards the published values
 )
 

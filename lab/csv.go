@@ -263,9 +263,27 @@ func parseTable(file string, recs []record, specs []colSpec) (*table, error) {
 	if len(t.rows) == 0 {
 		return nil, &ParseError{File: file, Line: h.line, Err: ErrEmpty, Msg: "header without data rows"}
 	}
+	// Spreadsheets pad rows with empty cells, which carry nothing; but they pad the header or
+	// every row alike. A row longer than both the header and the shortest row, its extra
+	// cells empty, is a number split by a decimal comma in front of an empty optional
+	// column: taking the empty cell for padding would shift every value after the comma.
+	padded := len(h.cells)
+	if raw := len(recs[0].cells); raw > padded {
+		padded = raw
+	}
+	shortest := len(t.rows[0].cells)
+	for _, r := range t.rows {
+		shortest = min(shortest, len(r.cells))
+	}
+	padded = max(padded, shortest)
 	for k, r := range t.rows {
 		if len(r.cells) > t.width && len(trimTrailing(r.cells)) <= t.width {
-			// Spreadsheets pad rows with empty cells; they carry nothing.
+			if len(r.cells) > padded {
+				return nil, &ParseError{File: file, Line: r.line, Err: ErrRagged,
+					Msg: fmt.Sprintf("expected %d cells as in the header (line %d), got %d; the extra cells are empty but not a spreadsheet's padding (the header has %d cells, the shortest row %d)",
+						t.width, h.line, len(r.cells), len(recs[0].cells), shortest),
+					Hint: "a decimal comma splits a number in two and shifts the values after it: use a point (12.5); if the row is only padded, remove its trailing commas"}
+			}
 			t.rows[k].cells = r.cells[:t.width]
 			continue
 		}

@@ -21,7 +21,7 @@ const (
 	// total volume rebuilt from Bod, Bg and Rsd carries the rounding of Bg (up to 0.08 %).
 	publishedBtRelTol = 0.002
 	// The DL mass balance closes to 0.05 % on the printed table; 0.3 % catches a
-	// transcription slip in a density, Bod, Rsd or gas gravity.
+	// copying slip in a density, Bod, Rsd or gas gravity.
 	publishedDensityRelTol = 0.003
 )
 
@@ -144,7 +144,7 @@ func TestPublishedGoodOilQC(t *testing.T) {
 }
 
 func TestPublishedGoodOilMassBalance(t *testing.T) {
-	// Transcription check of the fixture: with the residual oil gravity printed under the
+	// Copying check of the fixture: with the residual oil gravity printed under the
 	// table (35.1 °API at 60 °F; UT PGE 312 course solution to McCain problem 10-6), the DL
 	// mass balance of McCain ch. 10 reproduces every printed oil density, including the
 	// remembered atmospheric row (1.075, 0.7892 g/cm³, last gas 2.039).

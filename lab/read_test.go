@@ -141,6 +141,7 @@ func TestReadBad(t *testing.T) {
 		{"text-in-number", ErrNumber, "dl.csv", 4, 2, `(Rsd [scf/STB]): "four hundred" is not a number; expected a number`},
 		{"unit-in-cell", ErrNumber, "dl.csv", 4, 2, "write the unit in the header"},
 		{"decimal-comma", ErrRagged, "dl.csv", 4, 0, "expected 3 cells as in the header (line 2), got 4; hint: a decimal comma"},
+		{"decimal-comma-padding", ErrRagged, "dl.csv", 6, 0, "got 6; the extra cells are empty but not a spreadsheet's padding (the header has 5 cells, the shortest row 5); hint: a decimal comma"},
 		{"nan", ErrNotFinite, "dl.csv", 4, 3, `"NaN" is not a finite number`},
 		{"inf", ErrNotFinite, "dl.csv", 4, 1, `"Inf" is not a finite number`},
 		{"zero-pressure", ErrRange, "dl.csv", 6, 1, "0 psia is a vacuum"},
@@ -339,6 +340,9 @@ func TestReadCells(t *testing.T) {
 	}{
 		{"ok with padding cells", fluid, dlHead + "2500,600,1.35,,\n", nil, nil, "", 0, 0, ""},
 		{"ok upper-case file name", "", dlHead + "2500,600,1.35\n", map[string]string{"FLUID.CSV": fluid}, nil, "", 0, 0, ""},
+		{"ok with a padded header and shorter rows below", fluid, "pressure [psia],Rsd [scf/STB],Bod [rb/STB],,\n2500,600,1.35,,\n14.696,0,1.05\n", nil, nil, "", 0, 0, ""},
+		{"ok with every row padded alike", fluid, dlHead + "2500,600,1.35,\n14.696,0,1.05,\n", nil, nil, "", 0, 0, ""},
+		{"one row padded beyond the others", fluid, dlHead + "2500,600,1.35\n14.696,0,1.05,\n", nil, ErrRagged, "dl.csv", 3, 0, "not a spreadsheet's padding"},
 		{"padding with text is ragged", fluid, dlHead + "2500,600,1.35,,x\n", nil, ErrRagged, "dl.csv", 2, 0, "got 5"},
 		{"empty required cell", fluid, dlHead + "2500,,1.35\n", nil, ErrNumber, "dl.csv", 2, 2, "empty cell"},
 		{"decimal comma in quotes", fluid, dlHead + "2500,\"600,5\",1.35\n", nil, ErrNumber, "dl.csv", 2, 2, "decimal separator"},

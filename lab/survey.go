@@ -153,9 +153,6 @@ func ParseSurvey(file string, data []byte) (*Survey, error) {
 	if err != nil {
 		return nil, err
 	}
-	if err := surveyPadding(file, recs); err != nil {
-		return nil, err
-	}
 	t, err := parseTable(file, recs, surveyCols)
 	if err != nil {
 		return nil, err
@@ -184,29 +181,6 @@ func ParseSurvey(file string, data []byte) (*Survey, error) {
 		sv.Samples = append(sv.Samples, s)
 	}
 	return sv, nil
-}
-
-// surveyPadding refuses a row longer than the header whose extra cells are empty when other
-// rows are not as long. The report reader takes such cells for a spreadsheet's padding, but a
-// spreadsheet pads every row alike; one longer row in a database whose last column is an
-// optional text column is a number split by a decimal comma, every value after it shifted.
-func surveyPadding(file string, recs []record) error {
-	if len(recs) < 2 {
-		return nil
-	}
-	width := len(trimTrailing(recs[0].cells))
-	shortest := len(recs[1].cells)
-	for _, r := range recs[1:] {
-		shortest = min(shortest, len(r.cells))
-	}
-	for _, r := range recs[1:] {
-		if n := len(r.cells); n > width && n > shortest {
-			return &ParseError{File: file, Line: r.line, Err: ErrRagged,
-				Msg:  fmt.Sprintf("expected %d cells as in the header (line %d), got %d", width, recs[0].line, n),
-				Hint: "a decimal comma splits a number in two: use a point (12.5)"}
-		}
-	}
-	return nil
 }
 
 // surveyRow reads one row. A structural problem is an error; a value out of bounds or a missing
