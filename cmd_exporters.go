@@ -39,8 +39,12 @@ func exportReport(path string, s tui.Snapshot, force bool) error {
 		Options: s.Options, Model: s.Model, Origin: "tuned in the workbench"}, force)
 }
 
-// snapshotTable builds the black-oil table of the workbench's tuned model.
+// snapshotTable is the black-oil table the Tables screen shows, or, before the screen has
+// built one, the table of the workbench's tuned model with the same defaults.
 func snapshotTable(s tui.Snapshot) (*export.Table, error) {
+	if s.Table != nil {
+		return s.Table, nil
+	}
 	if s.Model == nil || s.Report == nil || s.Dataset == nil {
 		return nil, errors.New("labmatch: no tuned model to tabulate")
 	}

@@ -447,11 +447,29 @@ func rankLess(a, b RankEntry) bool {
 		if ta, tb := math.Round(*a.AARETuned/aareTie), math.Round(*b.AARETuned/aareTie); ta != tb {
 			return ta < tb
 		}
+		// Tied (one point fitted exactly by every family): fewer cautions first, a family used
+		// outside its original data and one whose multiplier is far from 1 counting one each.
+		if ca, cb := cautions(a), cautions(b); ca != cb {
+			return ca < cb
+		}
 		if *a.AAREPublished != *b.AAREPublished {
 			return *a.AAREPublished < *b.AAREPublished
 		}
 	}
 	return a.Family < b.Family
+}
+
+// cautions counts what speaks against a family beside its errors: used outside its original
+// data, and a multiplier (or coefficient) flagged as far from the published value.
+func cautions(e RankEntry) int {
+	n := 0
+	if !e.InRange {
+		n++
+	}
+	if len(e.Flags) > 0 {
+		n++
+	}
+	return n
 }
 
 // rankKey is the error a family is ranked by.

@@ -246,3 +246,18 @@ func TestMultiplierTransform(t *testing.T) {
 		}
 	}
 }
+
+// Families that tie on error (one point fitted exactly by all) rank by their cautions first:
+// used outside the original data or with a multiplier far from 1 (behaviour).
+func TestRankTieCautions(t *testing.T) {
+	zero, pubA, pubB := 0.0, 30.0, 10.0
+	clean := RankEntry{Family: "a", AARETuned: &zero, AAREPublished: &pubA, InRange: true}
+	outside := RankEntry{Family: "b", AARETuned: &zero, AAREPublished: &pubB, InRange: false}
+	if !rankLess(clean, outside) || rankLess(outside, clean) {
+		t.Error("a clean family must rank before a tied one used outside its data, whatever their published errors")
+	}
+	flagged := RankEntry{Family: "c", AARETuned: &zero, AAREPublished: &pubA, InRange: true, Flags: []string{"multiplier far from 1"}}
+	if !rankLess(outside, flagged) {
+		t.Error("with one caution each, the smaller published error ranks first")
+	}
+}
