@@ -21,9 +21,6 @@ const (
 	noFitMax  = 10.0
 )
 
-// looSimplex is the initial simplex of the leave-one-out refits, which start at the full fit.
-const looSimplex = 0.05
-
 // rungFit is one fitted rung with the predictions it made.
 type rungFit struct {
 	rung  Rung
@@ -170,28 +167,10 @@ func (pr *problem) fitRung(d Depth, l layout, start []float64) (rungFit, error) 
 	if x0 == nil {
 		x0 = pr.coords(Params{Multiplier: 1})
 	}
-	x, evals, err := pr.minimize(x0, 0.1)
+	x, evals, err := pr.minimize(x0)
 	rf.evals = evals
 	if err != nil {
 		return rf, err
-	}
-	// Nelder–Mead (the Huber loss) can stall in a narrow valley (a coefficient strongly
-	// correlated with the multiplier) when its first simplex is large: restart from the result
-	// with smaller simplices while that still lowers the objective.
-	if len(x) > 1 && pr.loss == Huber {
-		best := pr.objectiveAt(x)
-		for _, size := range []float64{0.05, 0.02, 0.05, 0.02} {
-			y, ev, err := pr.minimize(x, size)
-			rf.evals += ev
-			if err != nil {
-				break
-			}
-			v := pr.objectiveAt(y)
-			if !(v < best*(1-1e-9)) {
-				break
-			}
-			x, best = y, v
-		}
 	}
 	q, err := pr.params(x)
 	if err != nil {
@@ -204,15 +183,6 @@ func (pr *problem) fitRung(d Depth, l layout, start []float64) (rungFit, error) 
 	}
 	rf.rung.Flags = multiplierFlags(pr.prop, rf.q, l)
 	return rf, nil
-}
-
-// objectiveAt is the objective at optimiser coordinates x under the current layout.
-func (pr *problem) objectiveAt(x []float64) float64 {
-	q, err := pr.params(x)
-	if err != nil {
-		return penalty
-	}
-	return pr.objective(q)
 }
 
 // leaveOneOut refits the rung with each free point left out in turn and predicts it. The
@@ -241,7 +211,7 @@ func (pr *problem) leaveOneOut(rf *rungFit) {
 		v := rf.vals[i]
 		if k > 0 && pr.free(i) {
 			pr.use[i] = false
-			x, evals, err := pr.minimize(rf.x, looSimplex)
+			x, evals, err := pr.minimize(rf.x)
 			rf.evals += evals
 			var q Params
 			if err == nil {

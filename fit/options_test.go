@@ -2,8 +2,10 @@ package fit
 
 import (
 	"math"
+	"strconv"
 	"testing"
 
+	"labmatch/lab"
 	"labmatch/samples"
 )
 
@@ -129,4 +131,54 @@ func TestPropertyDepth(t *testing.T) {
 	if res[Bo].Depth != DepthPublished || res[Co].Depth != DepthMultiplier || res[Pb].Depth != DepthShape {
 		t.Errorf("depths bo %s, co %s, pb %s; want published, multiplier and the leave-one-out choice (shape)", res[Bo].Depth, res[Co].Depth, res[Pb].Depth)
 	}
+}
+
+// Within its threshold the Huber loss is the squared error (Huber, P.J. (1964), "Robust
+// Estimation of a Location Parameter", Ann. Math. Statist. 35 (1), eq. for ρ): with a δ larger
+// than every residual, each rung of the ladder must reach the optimum of the relative loss, and
+// its leave-one-out refits too. Nelder–Mead stopped at the shallower rung's optimum here (the
+// refit rung's training error equal to the shape rung's, the leave-one-out error equal to the
+// training error: the left-out fits never moved).
+func TestHuberWithinDeltaIsRelative(t *testing.T) {
+	r, err := lab.ReadFolder("../testdata/published/good-oil-well-4")
+	if err != nil {
+		t.Fatal(err)
+	}
+	ds, err := NewDataset(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const tol = 1e-3 // percentage points of AARE
+	for _, c := range []struct {
+		prop   PropertyID
+		family string
+	}{{Bo, "al-marhoun"}, {MuSat, "beggs-robinson"}, {Pb, "valko-mccain"}, {Co, "petrosky-farshad"}} {
+		rel, err := Tune(ds, c.prop, c.family, Options{Depth: DepthRefit})
+		if err != nil {
+			t.Fatal(err)
+		}
+		hub, err := Tune(ds, c.prop, c.family, Options{Depth: DepthRefit, Loss: Huber, HuberDelta: 0.5})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i, a := range rel.Ladder {
+			b := hub.Ladder[i]
+			if a.Skipped != "" || b.Skipped != "" {
+				continue
+			}
+			if math.Abs(a.Tuned.AARE-b.Tuned.AARE) > tol {
+				t.Errorf("%s %s %s: Huber training AARE %.4f %%, relative %.4f %%", c.prop, c.family, a.Depth, b.Tuned.AARE, a.Tuned.AARE)
+			}
+			if (a.LOO == nil) != (b.LOO == nil) || a.LOO != nil && math.Abs(*a.LOO-*b.LOO) > tol {
+				t.Errorf("%s %s %s: Huber leave-one-out %v, relative %v", c.prop, c.family, a.Depth, pct(b.LOO), pct(a.LOO))
+			}
+		}
+	}
+}
+
+func pct(v *float64) string {
+	if v == nil {
+		return "n/a"
+	}
+	return strconv.FormatFloat(*v, 'f', 4, 64)
 }

@@ -6,7 +6,6 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/mat"
-	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/stat/distuv"
 )
 
@@ -22,13 +21,10 @@ const (
 	MinCoefficientRatio = 0.25
 	MaxCoefficientRatio = 4.0
 
-	FlagLowMult    = 0.8
-	FlagHighMult   = 1.25
-	penalty        = 1e30 // objective value where the correlation cannot be evaluated
-	fdStep         = 1e-6 // relative step of the finite-difference Jacobian
-	nmMaxEvals     = 4000
-	nmFuncTol      = 1e-12
-	nmConvergeIter = 8 // major iterations without a better vertex; 5 stopped 1-D contractions at 1e-4
+	FlagLowMult  = 0.8
+	FlagHighMult = 1.25
+	penalty      = 1e30 // objective value where the correlation cannot be evaluated
+	fdStep       = 1e-6 // relative step of the finite-difference Jacobian
 )
 
 // RidgeStrength is λ of the refit depth's penalty λ·Σ(c/c₀ − 1)² on the relative change of
@@ -433,17 +429,13 @@ func shiftUnit(prop PropertyID, pts []Point) string {
 	return rmseUnit(prop, pts)
 }
 
-// minimize runs Nelder–Mead on the current layout from x0 with an initial simplex of the given
-// size and returns the optimum's coordinates. A layout with no free parameter returns x0.
-func (pr *problem) minimize(x0 []float64, simplex float64) ([]float64, int, error) {
-	f := func(x []float64) float64 {
-		q, err := pr.params(x)
-		if err != nil {
-			return penalty
-		}
-		return pr.objective(q)
-	}
-	if f(x0) >= penalty {
+// minimize finds the optimum of the current layout's objective from x0 and returns its
+// coordinates: in closed form where the model is affine in its parameters (linear), else by
+// Levenberg–Marquardt on the residuals (leastSquares). A layout with no free parameter
+// returns x0.
+func (pr *problem) minimize(x0 []float64) ([]float64, int, error) {
+	q, err := pr.params(x0)
+	if err != nil || pr.objective(q) >= penalty {
 		return nil, 1, fmt.Errorf("fit: %s: the correlation cannot be evaluated for this oil at the start", pr.prop)
 	}
 	if len(x0) == 0 {
@@ -452,28 +444,32 @@ func (pr *problem) minimize(x0 []float64, simplex float64) ([]float64, int, erro
 	if x, ok := pr.linear(); ok {
 		return x, 1, nil
 	}
-	if pr.loss != Huber {
-		return pr.leastSquares(x0)
-	}
-	settings := &optimize.Settings{
-		FuncEvaluations: nmMaxEvals,
-		Converger:       &optimize.FunctionConverge{Absolute: nmFuncTol, Relative: nmFuncTol, Iterations: nmConvergeIter},
-	}
-	res, err := optimize.Minimize(optimize.Problem{Func: f}, x0, settings, &optimize.NelderMead{SimplexSize: simplex})
-	if err != nil {
-		return nil, 0, fmt.Errorf("fit: %s: Nelder–Mead: %w", pr.prop, err)
-	}
-	if serr := res.Status.Err(); serr != nil && res.Status != optimize.FunctionEvaluationLimit {
-		return nil, res.FuncEvaluations, fmt.Errorf("fit: %s: Nelder–Mead ended with %v: %w", pr.prop, res.Status, serr)
-	}
-	return res.X, res.FuncEvaluations, nil
+	return pr.leastSquares(x0)
 }
 
-// leastSquares minimises the objective of a quadratic loss as a sum of squares by
-// Levenberg–Marquardt from x0: the residuals √w·r of the free points and the ridge's
-// √λ·(c/c₀ − 1). Nelder–Mead was measured to stall at its start in the narrow valley of a
-// coefficient strongly correlated with the multiplier (Beggs–Robinson's 0.515 on the published
-// report), which also made leave-one-out errors look better than the full fit.
+// huberResidual is the signed square root of the Huber loss of a residual r with threshold δ,
+// ψ(r) = r for |r| ≤ δ and sign(r)·√(2δ|r| − δ²) beyond (Huber, P.J. (1964), "Robust
+// Estimation of a Location Parameter", Ann. Math. Statist. 35 (1): ρ = r² within δ, 2δ|r| − δ²
+// beyond, in the scaling of objective). ψ² = ρ, and ψ is continuous with its first derivative
+// at |r| = δ (both sides give ψ = δ, ψ' = 1), so the Huber objective is a sum of squares that
+// Levenberg–Marquardt minimises; its gradient Σ 2ψψ'·∂r is the exact one, so the optimum is
+// the Huber optimum.
+func huberResidual(r, delta float64) float64 {
+	a := math.Abs(r)
+	if a <= delta {
+		return r
+	}
+	return math.Copysign(math.Sqrt(2*delta*a-delta*delta), r)
+}
+
+// leastSquares minimises the objective as a sum of squares by Levenberg–Marquardt from x0: the
+// residuals √w·r of the free points (√w·ψ(r) for the Huber loss, see huberResidual) and the
+// ridge's √λ·(c/c₀ − 1). Nelder–Mead was measured to stall at its start in the narrow valley
+// of a coefficient strongly correlated with the multiplier (Beggs–Robinson's 0.515 on the
+// published report), which also made leave-one-out errors look better than the full fit; with
+// the Huber loss, which it minimised until this, its refit rung stayed at the shape rung's
+// optimum and its leave-one-out refits did not move from the full fit
+// (TestHuberWithinDeltaIsRelative).
 func (pr *problem) leastSquares(x0 []float64) ([]float64, int, error) {
 	var free []int
 	for i := range pr.pts {
@@ -482,13 +478,18 @@ func (pr *problem) leastSquares(x0 []float64) ([]float64, int, error) {
 		}
 	}
 	nr := len(free) + len(pr.lay.coef)
+	huber := pr.loss == Huber
 	resid := func(x, out []float64) bool {
 		q, err := pr.params(x)
 		if err != nil || pr.predict(q, pr.pred) != nil {
 			return false
 		}
 		for a, i := range free {
-			out[a] = math.Sqrt(pr.w[i]) * pr.residual(i, pr.pred[i])
+			r := pr.residual(i, pr.pred[i])
+			if huber {
+				r = huberResidual(r, pr.delta)
+			}
+			out[a] = math.Sqrt(pr.w[i]) * r
 		}
 		for a, j := range pr.lay.coef {
 			out[len(free)+a] = math.Sqrt(pr.lambda) * (q.Coefficients[j]/pr.coef0[j] - 1)
@@ -510,8 +511,9 @@ func (pr *problem) leastSquares(x0 []float64) ([]float64, int, error) {
 // linear solves a multiplier (and shift) of an affine model with published coefficients and a
 // quadratic loss in closed form: the objective is then a weighted linear least-squares problem
 // in (m, s), and when its optimum lies inside the bounds it is also the optimum of the bounded
-// problem that Nelder–Mead would approach. ok is false when the closed form does not apply or
-// its optimum is outside the bounds (Nelder–Mead then runs on the transformed parameters).
+// problem on the transformed parameters. ok is false when the closed form does not apply or
+// its optimum is outside the bounds (Levenberg–Marquardt then runs on the transformed
+// parameters).
 func (pr *problem) linear() ([]float64, bool) {
 	l := pr.lay
 	if pr.af == nil || pr.loss == Huber || pr.basisErr != nil || !l.mult || l.exp || len(l.coef) > 0 || l.anchor {

@@ -213,7 +213,7 @@ func TestNaNNeverReachesTheFit(t *testing.T) {
 		t.Errorf("objective = %g, want the penalty %g", v, penalty)
 	}
 	pr.lay = layout{mult: true}
-	if _, _, err := pr.minimize([]float64{0}, 0.1); err == nil {
+	if _, _, err := pr.minimize([]float64{0}); err == nil {
 		t.Error("minimize on a NaN model: want an error")
 	}
 	if _, err := pr.stats(Published, make([]float64, len(pr.pts))); err == nil {
