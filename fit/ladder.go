@@ -58,6 +58,14 @@ func (pr *problem) layoutFor(d Depth) (layout, string) {
 		}
 		l.coef = pr.identifiable(l)
 		if len(l.coef) == 0 {
+			// Name the real reason: with no point to spare beyond the multiplier and shift,
+			// no coefficient can be freed, whatever it does to the curve.
+			switch n, base := pr.freePoints(), l.size(); {
+			case n == 0:
+				return l, "no free point to refit the coefficients to"
+			case n <= base:
+				return l, fmt.Sprintf("%s for the %s before the coefficients: none to spare for them", plural(n, "free point"), plural(base, "parameter"))
+			}
 			return l, "no declared coefficient changes the curve beyond the shallower rungs' parameters"
 		}
 	}

@@ -1,6 +1,8 @@
 package fit
 
 import (
+	"encoding/json"
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"strings"
@@ -219,6 +221,75 @@ func TestMultiplierFlagsBesideRefit(t *testing.T) {
 			t.Errorf("coef %v, m %g: flags %q, want none", tc.l.coef, tc.m, fl)
 		case tc.want != "" && (len(fl) != 1 || !strings.Contains(fl[0], tc.want)):
 			t.Errorf("coef %v, m %g: flags %q, want one containing %q", tc.l.coef, tc.m, fl, tc.want)
+		}
+	}
+}
+
+// TestFewFreePoints leaves points out of the demo report until a property has 0 to 3 free
+// points, at every depth and loss: every rung is fitted with finite errors or skipped with a
+// reason, a missing leave-one-out error says why, the result encodes as JSON (which refuses
+// NaN and Inf), and a refit with no point to spare beyond the shallower rungs' parameters says
+// so rather than blaming the coefficients. Behaviour test.
+func TestFewFreePoints(t *testing.T) {
+	r, err := samples.Load("tr3-black")
+	if err != nil {
+		t.Fatal(err)
+	}
+	ds, err := NewDataset(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cases := []struct {
+		prop     PropertyID
+		family   string
+		noAnchor bool // pb: the report's Pb left out as well
+	}{{Pb, "standing", false}, {Pb, "valko-mccain", true}, {Bo, "standing", false}, {MuSat, "beggs-robinson", false}}
+	for _, c := range cases {
+		n := len(ds.Points[c.prop])
+		for keep := 0; keep <= 3; keep++ {
+			var ex []int
+			first := 0
+			if c.prop == Pb {
+				first = 1 // the anchor
+				if c.noAnchor {
+					ex = append(ex, 0)
+				}
+			}
+			for i := first + keep; i < n; i++ {
+				ex = append(ex, i)
+			}
+			if len(ex) == n { // nothing left at all: an error, not a fit
+				_, err := Tune(ds, c.prop, c.family, Options{Excluded: map[PropertyID][]int{c.prop: ex}})
+				if err == nil {
+					t.Errorf("%s: every point excluded, no error", c.prop)
+				}
+				continue
+			}
+			for _, loss := range []Loss{Relative, Absolute, Huber} {
+				for _, d := range append([]Depth{""}, Depths...) {
+					name := fmt.Sprintf("%s %s anchor=%v keep=%d %s depth=%q", c.prop, c.family, !c.noAnchor, keep, loss, d)
+					res, err := Tune(ds, c.prop, c.family, Options{Depth: d, Loss: loss, Excluded: map[PropertyID][]int{c.prop: ex}})
+					if err != nil {
+						t.Errorf("%s: %v", name, err)
+						continue
+					}
+					if _, err := json.Marshal(res); err != nil {
+						t.Errorf("%s: JSON: %v", name, err)
+					}
+					for _, g := range res.Ladder {
+						switch {
+						case g.Skipped != "":
+							if g.Depth == DepthRefit && keep <= 2 && c.prop != Pb && strings.Contains(g.Skipped, "no declared coefficient") {
+								t.Errorf("%s: refit skipped %q with %d free points", name, g.Skipped, keep)
+							}
+						case g.LOO == nil && g.LOONote == "":
+							t.Errorf("%s: %s has no leave-one-out error and no note", name, g.Depth)
+						case g.LOO != nil && (math.IsNaN(*g.LOO) || math.IsInf(*g.LOO, 0)):
+							t.Errorf("%s: %s leave-one-out %g", name, g.Depth, *g.LOO)
+						}
+					}
+				}
+			}
 		}
 	}
 }
