@@ -293,3 +293,70 @@ func TestFewFreePoints(t *testing.T) {
 		}
 	}
 }
+
+// TestApplyRecordedParameters: recorded parameters applied to the report they were tuned on
+// give the tuned statistics and intervals (the pb scale still follows the anchor as the bend
+// moves); a recorded published depth has no free parameter, hence no interval; a pb scale
+// edited by hand no longer honours the report's Pb, and the result says so instead of
+// claiming the anchor. Behaviour test.
+func TestApplyRecordedParameters(t *testing.T) {
+	r, err := samples.Load("tr3-black")
+	if err != nil {
+		t.Fatal(err)
+	}
+	ds, err := NewDataset(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, d := range []Depth{DepthShape, DepthRefit} {
+		tuned, err := Tune(ds, Pb, "standing", Options{Depth: d})
+		if err != nil {
+			t.Fatal(err)
+		}
+		ap, err := Apply(ds, map[PropertyID]Result{Pb: tuned}, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		got := ap[Pb]
+		if !got.Anchored || math.Abs(got.Tuned.AARE-tuned.Tuned.AARE) > 1e-9 {
+			t.Errorf("%s: applied anchored %v AARE %.6f, tuned %.6f", d, got.Anchored, got.Tuned.AARE, tuned.Tuned.AARE)
+		}
+		for name, ci := range tuned.CI95 {
+			g, ok := got.CI95[name]
+			if !ok || math.Abs(g[1]-g[0]-(ci[1]-ci[0])) > 1e-6*(ci[1]-ci[0]) {
+				t.Errorf("%s: applied interval of %s %v, tuned %v", d, name, g, ci)
+			}
+		}
+	}
+	pub, err := Tune(ds, Bo, "standing", Options{Depth: DepthPublished})
+	if err != nil {
+		t.Fatal(err)
+	}
+	ap, err := Apply(ds, map[PropertyID]Result{Bo: pub}, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if ap[Bo].CI95 != nil {
+		t.Errorf("published depth applied: intervals %v, want none", ap[Bo].CI95)
+	}
+	edited, err := Tune(ds, Pb, "standing", Options{Depth: DepthShape})
+	if err != nil {
+		t.Fatal(err)
+	}
+	edited.Params.Multiplier *= 1.1
+	ap, err = Apply(ds, map[PropertyID]Result{Pb: edited}, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := ap[Pb]
+	if got.Anchored {
+		t.Error("edited pb scale applied: still marked as anchored on the report's Pb")
+	}
+	found := false
+	for _, f := range got.Flags {
+		found = found || strings.Contains(f, "not the report's")
+	}
+	if !found {
+		t.Errorf("edited pb scale: flags %q, want one saying Pb is not the report's", got.Flags)
+	}
+}

@@ -102,6 +102,7 @@ func tuneWith(ds *Dataset, prop PropertyID, family string, opts Options, dead, s
 		}
 	}
 	res.Params, res.Depth, res.Tuned, res.LOO = chosen.q, chosen.rung.Depth, chosen.rung.Tuned, chosen.rung.LOO
+	res.Anchored = pr.anchored // recorded parameters may not honour the anchor
 	for i, pt := range pr.pts {
 		res.Residuals = append(res.Residuals, Residual{Quantity: pt.Quantity, Unit: pt.Unit, Pressure: pt.Pressure,
 			Lab: pt.Lab, Published: pubVals[i], Tuned: chosen.vals[i], Excluded: !pr.use[i], Source: pt.Source, Line: pt.Line})
@@ -235,9 +236,19 @@ func extendStart(pr *problem, from layout, x []float64, to layout) []float64 {
 	return pr.coords(q)
 }
 
-// evaluateFixed evaluates recorded parameters (a tuning file) as the rung they belong to.
+// evaluateFixed evaluates recorded parameters (a tuning file) as the rung they belong to. The
+// free parameters, for the intervals, are the rung's: none at the published depth, the
+// multiplier (or the pb anchor) above it, and the shift, bend and coefficients that the
+// record moves from their published values. A recorded pb pair keeps the anchor when it
+// honours the report's Pb (its scale then follows the anchor in the intervals, as when it was
+// tuned); one that does not (edited, or from another report) is applied as it is, with a
+// remark giving its bubble point.
+// anchorTol is how closely (relative) recorded pb parameters must reproduce the report's Pb to
+// count as anchored on it: round-off of a scale written with every digit.
+const anchorTol = 1e-9
+
 func (pr *problem) evaluateFixed(q Params, d Depth) (*rungFit, error) {
-	l := layout{mult: pr.prop != Pb, shift: q.Shift != 0, exp: q.Bend != 0}
+	l := layout{shift: q.Shift != 0, exp: q.Bend != 0}
 	if q.Coefficients != nil {
 		if len(q.Coefficients) != len(pr.coef0) {
 			return nil, fmt.Errorf("fit: %s: %d coefficients recorded, the family declares %d", pr.prop, len(q.Coefficients), len(pr.coef0))
@@ -248,7 +259,19 @@ func (pr *problem) evaluateFixed(q Params, d Depth) (*rungFit, error) {
 			}
 		}
 	}
-	pr.anchored = false // recorded parameters are applied as they are
+	tuned := d != DepthPublished || q.Multiplier != 1 || l.size() > 0
+	if pr.anchored {
+		pm := pr.nl.(pbModel)
+		pb, err := pm.pb(q, pm.rsb)
+		honours := err == nil && math.Abs(pb/pr.pbLab-1) <= anchorTol
+		if tuned && !honours && err == nil {
+			pr.notes = append(pr.notes, fmt.Sprintf("the recorded pair gives Pb = %s psia at Rsb, not the report's %s psia: applied as recorded, not anchored",
+				groupDigits(pb), groupDigits(pr.pbLab)))
+		}
+		pr.anchored = tuned && honours
+	}
+	l.anchor = pr.anchored
+	l.mult = tuned && !l.anchor
 	pr.lay = l
 	rf := &rungFit{rung: Rung{Depth: d, Free: l.size(), Params: q.clone(), Chosen: true}, lay: l, q: q.clone(), vals: make([]float64, len(pr.pts))}
 	var err error
