@@ -371,10 +371,17 @@ Rs(p) stays an exact inverse. DIR may be demo:<id> for a built-in report.`)
 
 func printResult(w io.Writer, res fit.Result) {
 	fmt.Fprintf(w, "\n%s: %s at depth %s\n", propertyTitle(res.Property), res.Family, res.Depth)
-	if res.Property == fit.Pb && res.Anchored && res.Depth != fit.DepthPublished {
+	name := "multiplier"
+	if res.Property == fit.Pb {
+		name = "pressure scale"
+	}
+	switch {
+	case res.Property == fit.Pb && res.Anchored && res.Depth != fit.DepthPublished:
 		fmt.Fprintf(w, "  pressure scale %.4f  fixed by the report's Pb (Pb exact)\n", res.Params.Multiplier)
-	} else {
-		fmt.Fprintf(w, "  multiplier %.4f  %s\n", res.Params.Multiplier, interval(res, "multiplier", "%.4f"))
+	case res.Depth == fit.DepthPublished && res.Params.Multiplier == 1 && !res.Shifted:
+		fmt.Fprintf(w, "  %s %.4f  (published: nothing tuned)\n", name, res.Params.Multiplier)
+	default:
+		fmt.Fprintf(w, "  %s %.4f  %s\n", name, res.Params.Multiplier, interval(res, "multiplier", "%.4f"))
 	}
 	if res.Shifted {
 		fmt.Fprintf(w, "  shift      %.4g %s  %s\n", res.Params.Shift, res.ShiftUnit, interval(res, "shift", "%.4g"))
@@ -451,7 +458,7 @@ func interval(res fit.Result, name, format string) string {
 	if res.CIAssumed {
 		s += " (from an assumed lab uncertainty: no spare points)"
 	}
-	if name == "multiplier" && (ci[0] < fit.MinMultiplier || ci[1] > fit.MaxMultiplier) {
+	if (name == "multiplier" || name == "bend") && (ci[0] < fit.MinMultiplier || ci[1] > fit.MaxMultiplier) {
 		s += fmt.Sprintf(" (reaches past the bounds [%g, %g]: read it as poorly determined)", fit.MinMultiplier, fit.MaxMultiplier)
 	}
 	return s

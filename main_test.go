@@ -286,3 +286,43 @@ func TestQCErrorSaidWhenTuning(t *testing.T) {
 		t.Errorf("clean demo report: %q", stderr)
 	}
 }
+
+// A tuning file whose pb pressure scale was edited by hand no longer honours the report's Pb:
+// tune --tuning must not print it as fixed by the report's Pb, and says which Pb it gives. A
+// published depth prints no interval request ("nothing tuned"). Behaviour test.
+func TestTuningFileEditedScale(t *testing.T) {
+	dir := t.TempDir()
+	tf := filepath.Join(dir, "t.json")
+	if code, _, e := runCLI(t, "tune", "demo:tr3-black", "--depth", "shape", "--save", tf); code != exitOK {
+		t.Fatalf("tune --save: %s", e)
+	}
+	data, err := os.ReadFile(tf)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal(data, &doc); err != nil {
+		t.Fatal(err)
+	}
+	pb := doc["properties"].(map[string]any)["pb"].(map[string]any)["parameters"].(map[string]any)
+	pb["multiplier"] = pb["multiplier"].(float64) * 1.1
+	if data, err = json.Marshal(doc); err != nil {
+		t.Fatal(err)
+	}
+	edited := filepath.Join(dir, "edited.json")
+	if err := os.WriteFile(edited, data, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, out, e := runCLI(t, "tune", "demo:tr3-black", "--tuning", edited)
+	if code != exitOK {
+		t.Fatalf("tune --tuning edited: exit %d: %s", code, e)
+	}
+	sec := out[strings.Index(out, "pb —"):strings.Index(out, "bo —")]
+	if strings.Contains(sec, "Pb exact") || !strings.Contains(sec, "not the report's") {
+		t.Errorf("edited pb scale printed as:\n%s", sec)
+	}
+	code, out, e = runCLI(t, "tune", "demo:tr3-black", "--depth", "published")
+	if code != exitOK || strings.Contains(out, "interval not determined") || !strings.Contains(out, "nothing tuned") {
+		t.Errorf("published depth: exit %d (%s), output:\n%s", code, e, out)
+	}
+}
