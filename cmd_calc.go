@@ -131,6 +131,21 @@ func runCalcOil(args []string, stdout, stderr io.Writer) int {
 			return exitData
 		}
 	}
+	// Above Pb, Bo comes from the compressibility family: when that family cannot describe the
+	// oil, say which other families the user could pick.
+	if why, bad := failed["co"]; bad && press.v > m.Pb {
+		var others []string
+		for _, id := range fit.Families(fit.Co) {
+			if id != m.Families[fit.Co] {
+				others = append(others, id)
+			}
+		}
+		hint := fmt.Sprintf("; another --co family may apply (%s)", strings.Join(others, ", "))
+		failed["co"] = why + hint
+		if bw, ok := failed["Bo"]; ok {
+			failed["Bo"] = fmt.Sprintf("above Pb it needs the %s compressibility: %s%s", m.Families[fit.Co], bw, hint)
+		}
+	}
 	val := func(q string, v float64) *float64 {
 		if _, bad := failed[q]; bad {
 			return nil

@@ -326,3 +326,69 @@ func TestTuningFileEditedScale(t *testing.T) {
 		t.Errorf("published depth: exit %d (%s), output:\n%s", code, e, out)
 	}
 }
+
+// Odd oils (API 10 and 60, Rsb 10 and 3000 scf/STB, 60 and 350 °F) with every pb family, at
+// the bubble point and above it: calc oil answers (exit 0), every value it gives is finite
+// (the JSON encodes), and a property it cannot evaluate is null with a reason. Behaviour test.
+func TestCalcOddOils(t *testing.T) {
+	for _, pb := range []string{"standing", "vasquez-beggs", "glaso", "al-marhoun", "petrosky-farshad", "kartoatmodjo-schmidt", "lasater", "valko-mccain"} {
+		for _, api := range []string{"10", "60"} {
+			for _, rsb := range []string{"10", "3000"} {
+				for _, temp := range []string{"60", "350"} {
+					for _, p := range [][]string{nil, {"--pressure", "9000"}} {
+						args := append([]string{"calc", "oil", "--api", api, "--gas-gravity", "0.75", "--temperature", temp, "--rsb", rsb, "--pb", pb, "--json"}, p...)
+						code, out, e := runCLI(t, args...)
+						if code != exitOK {
+							t.Errorf("%v: exit %d: %s", args, code, e)
+							continue
+						}
+						var m map[string]any
+						if err := json.Unmarshal([]byte(out), &m); err != nil {
+							t.Errorf("%v: %v", args, err)
+							continue
+						}
+						why, _ := m["not_evaluated"].(map[string]any)
+						for _, k := range []string{"bo_rb_stb", "co_per_psi", "oil_density_lbm_ft3", "oil_viscosity_cp"} {
+							if m[k] == nil && len(why) == 0 {
+								t.Errorf("%v: %s is null with no reason", args, k)
+							}
+						}
+					}
+				}
+			}
+		}
+	}
+}
+
+// A cold, almost dead oil above its bubble point: Vasquez–Beggs' co is negative there
+// (Vasquez and Beggs 1980: co = (−1433 + 5Rsb + 17.2T − 1180γg + 12.61API)/(10⁵p), here
+// −1110/(10⁵p)), so Bo above Pb cannot be computed from it; calc oil says so beside Bo and co
+// and names the other co families, and one of them gives the answer.
+func TestCalcOilCoHint(t *testing.T) {
+	base := []string{"calc", "oil", "--api", "10", "--gas-gravity", "0.75", "--temperature", "60", "--rsb", "10", "--pressure", "500", "--json"}
+	code, out, e := runCLI(t, base...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, e)
+	}
+	var m struct {
+		Bo  *float64          `json:"bo_rb_stb"`
+		Why map[string]string `json:"not_evaluated"`
+	}
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	if m.Bo != nil || !strings.Contains(m.Why["Bo"], "vasquez-beggs compressibility") || !strings.Contains(m.Why["Bo"], "petrosky-farshad") {
+		t.Errorf("Bo %v, reason %q", m.Bo, m.Why["Bo"])
+	}
+	code, out, e = runCLI(t, append(base, "--co", "petrosky-farshad")...)
+	if code != exitOK {
+		t.Fatalf("--co petrosky-farshad: exit %d: %s", code, e)
+	}
+	m.Bo, m.Why = nil, nil
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	if m.Bo == nil || len(m.Why) != 0 {
+		t.Errorf("--co petrosky-farshad: Bo %v, not evaluated %v", m.Bo, m.Why)
+	}
+}
