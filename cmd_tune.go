@@ -25,16 +25,18 @@ func loadReport(arg string) (*lab.Report, error) {
 
 // optionFlags are the tuning options shared by rank and tune.
 type optionFlags struct {
+	fs                     *flag.FlagSet
 	depth, mode, loss, ppc *string
 	huber                  *float64
 }
 
 func addOptionFlags(fs *flag.FlagSet) optionFlags {
 	return optionFlags{
+		fs:    fs,
 		depth: fs.String("depth", "auto", "tuning `depth` of every property: published, multiplier, shape, refit, or auto (the rung with the smallest leave-one-out error)"),
 		mode:  fs.String("mode", "", "older name of --depth: multiplier, or multiplier+shift (= shape)"),
 		loss:  fs.String("loss", "relative", "objective: relative, absolute or huber"),
-		huber: fs.Float64("huber-delta", 0.02, "relative error where the huber loss turns linear"),
+		huber: fs.Float64("huber-delta", 0.02, "relative error where the huber loss turns linear (with --loss huber)"),
 		ppc:   fs.String("ppc", "", "force the pseudo-critical `method` of the z families: sutton or standing (default: both, ranked by the DL's Z)"),
 	}
 }
@@ -71,12 +73,17 @@ func (o optionFlags) options() (fit.Options, error) {
 	if !(*o.huber > 0 && *o.huber < 1) {
 		return opts, fmt.Errorf("--huber-delta %g: want a relative error between 0 and 1, e.g. 0.02", *o.huber)
 	}
+	set := false
+	o.fs.Visit(func(f *flag.Flag) { set = set || f.Name == "huber-delta" })
+	if set && opts.Loss != fit.Huber {
+		return opts, fmt.Errorf("--huber-delta is the threshold of --loss huber; the %s loss has none", opts.Loss)
+	}
 	return opts, nil
 }
 
 func runRank(args []string, stdout, stderr io.Writer) int {
-	fs := newFlagSet("rank", "labmatch rank DIR [--depth D] [--json]",
-		"Score every correlation family of every property against the report, as published and as\ntuned at its chosen depth (--depth), best first: by the leave-one-out AARE of that depth (to\n0.01 %; the tuned AARE where a property has too few points for one), then tuned AARE, then\npublished AARE, then id. Live-oil viscosity families are scored with the measured dead-oil\nviscosity and viscosity at Pb. DIR may be demo:<id> for a built-in report.")
+	fs := newFlagSet("rank", "labmatch rank DIR [--depth D] [--loss L] [--ppc M] [--json]",
+		"Score every correlation family of every property against the report, as published and as\ntuned at its chosen depth (--depth), best first: by the leave-one-out AARE of that depth (to\n0.01 %; the tuned AARE where a property has too few points for one), then tuned AARE, then\nfewer cautions (used outside its original data; a multiplier far from 1), then published\nAARE, then id. Live-oil viscosity families are scored with the measured dead-oil viscosity\nand viscosity at Pb (published values where the report has none). DIR may be demo:<id> for a\nbuilt-in report.")
 	asJSON := fs.Bool("json", false, "print JSON")
 	of := addOptionFlags(fs)
 	pos, code := parseFlags(fs, args, stdout, stderr)
@@ -243,11 +250,14 @@ func runTune(args []string, stdout, stderr io.Writer) int {
 of depths: published (no parameter), multiplier (pb: the anchor on the report's Pb alone),
 shape (pb: a bend of Rs(p) below Pb; others: multiplier and shift, none for mu_under and z,
 where a shift would break the continuity at Pb or the ideal-gas limit) and refit (the
-family's own coefficients, held near the published values). For every rung it prints the training and
-the leave-one-out AARE (each point left out in turn, refitted, predicted); by default the
-rung with the smallest leave-one-out error is used, a deeper one only when it wins by 10 %
-and 0.05 points. At every tuned depth Pb(Rsb) equals the report's Pb and the pair Pb(Rs),
-Rs(p) stays an exact inverse. DIR may be demo:<id> for a built-in report.`)
+family's own coefficients, held near the published values). For every rung it prints the
+training and the leave-one-out AARE (each point left out in turn, refitted, predicted); by
+default the rung with the smallest leave-one-out error is used, a deeper one only when it
+wins by 10 % and 0.05 points (pb takes at least the anchor; a property with one point, the
+multiplier). At every tuned depth Pb(Rsb) equals the report's Pb and the pair Pb(Rs), Rs(p)
+stays an exact inverse; with the report's Pb excluded (--exclude pb:0) nothing anchors the
+pair and its pressure scale is fitted to the Rs points. DIR may be demo:<id> for a built-in
+report.`)
 	fams := familyFlags(fs, nil, fit.Properties...)
 	of := addOptionFlags(fs)
 	exclude := fs.String("exclude", "", "leave points out: `list` of property:index, e.g. bo:3,mu_sat:0 (indexes as listed)")
@@ -272,6 +282,9 @@ Rs(p) stays an exact inverse. DIR may be demo:<id> for a built-in report.`)
 	choice, err := fams.choice()
 	if err != nil {
 		return usageError(fs, stderr, "%v", err)
+	}
+	if z := choice[fit.Z]; z != "" && opts.PseudoCritical != "" && !strings.HasPrefix(z, opts.PseudoCritical+"+") {
+		return usageError(fs, stderr, "--z %s and --ppc %s disagree on the pseudo-critical method: give one of them", z, opts.PseudoCritical)
 	}
 	r, ds, code := loadDataset(pos[0], stderr)
 	if code >= 0 {

@@ -28,6 +28,9 @@ func TestUsageErrors(t *testing.T) {
 		{"calc", "gas", "--gas-gravity", "0.7", "--temperature", "200", "--pressure", "12parsecs"},
 		{"tune", "demo:tr3-black", "--bo", "no-such-family"},
 		{"rank", "demo:tr3-black", "--mode", "sideways"},
+		{"tune", "demo:tr3-black", "--huber-delta", "0.05"}, // the threshold of a loss not asked for
+		{"rank", "demo:tr3-black", "--loss", "absolute", "--huber-delta", "0.05"},
+		{"tune", "demo:tr3-black", "--ppc", "sutton", "--z", "standing+dak"}, // two pseudo-critical methods
 	} {
 		code, _, stderr := runCLI(t, args...)
 		if code != exitUsage {
