@@ -61,8 +61,7 @@ type Table struct {
 	Gas         []GasRow // rising pressure: every saturated pressure and the top branch pressure
 	Water       Water
 	Surface     SurfaceDensities
-	Warnings    []string // inputs outside the data of the families used
-	Notes       []string // what the table leaves out and why
+	Warnings    []Warning // inputs outside the data of the families used and of the water correlations
 }
 
 // SatRow is one saturated row (the oil at its bubble point) and its undersaturated branch.
@@ -173,8 +172,8 @@ func BuildTable(m *fit.Model, src Source, opts TableOptions) (*Table, error) {
 			s, err := m.Undersaturated(r.Rs, p)
 			if err != nil && errors.Is(err, correlations.ErrInput) && i < len(t.Rows)-1 {
 				// The oil lies outside a family's domain above its bubble point: no branch.
+				// The file headers say so (headerLines), in their units.
 				r.Branch, r.NoBranch = nil, err.Error()
-				t.Notes = append(t.Notes, fmt.Sprintf("the saturated row at %.6g psia (Rs %.6g scf/STB) has no undersaturated branch (%v); simulators take the branch shape of the next row", r.Pressure, r.Rs, err))
 				break
 			}
 			if err != nil {
@@ -198,7 +197,7 @@ func BuildTable(m *fit.Model, src Source, opts TableOptions) (*Table, error) {
 	}
 	t.Surface.Oil = oilSurfaceDensityPerGravity * m.Oil.OilGravity()
 	t.Surface.Gas = gasSurfaceDensityPerGravity * m.Oil.GasGravity
-	t.Warnings = append(m.RangeWarnings(), waterWarnings(t.Water, m.Oil.Temperature, pmax)...)
+	t.Warnings = append(ModelWarnings(m), waterWarnings(t.Water, m.Oil.Temperature, pmax)...)
 	return t, nil
 }
 
@@ -366,25 +365,4 @@ func WaterAt(p, tF, salinity float64) (WaterPoint, error) {
 		return w, fmt.Errorf("export: tables: water viscosity at %.6g psia: %w", p, err)
 	}
 	return w, nil
-}
-
-// waterWarnings checks the water correlations' data ranges at the table's conditions.
-func waterWarnings(w Water, tF, pmax float64) []string {
-	in := map[string]float64{"temperature": tF, "p": w.RefPressure, "salinity": w.Salinity, "salt concentration": w.Concentration}
-	var ws []string
-	for _, p := range []correlations.Property{correlations.WaterFVF, correlations.WaterCompressibility, correlations.WaterViscosity, correlations.WaterDensity} {
-		for _, id := range correlations.IDs(p) {
-			e, err := correlations.Lookup(p, id)
-			if err != nil {
-				continue
-			}
-			for _, msg := range e.Check(in) {
-				ws = append(ws, fmt.Sprintf("%s (%s): %s", p, id, msg))
-			}
-		}
-	}
-	if pmax > 5000 {
-		ws = append(ws, fmt.Sprintf("bw (mccain): the table reaches %.0f psia, above the 5000 psia of McCain's Bw data", pmax))
-	}
-	return ws
 }
