@@ -122,3 +122,48 @@ func TestMetricHeaderNoBranchNote(t *testing.T) {
 		t.Errorf("metric CSV header lacks %q…:\n%s", want, b.String()[:min(b.Len(), 3000)])
 	}
 }
+
+// The metric report shows its numbers and plot axes in metric units: bara and °C in the axis
+// titles, the tables and the summary, and no field pressure axis left.
+func TestReportMetric(t *testing.T) {
+	tu := loadTuned(t, "good-oil-well-4")
+	in := reportInput(tu)
+	in.Units = Metric
+	var b bytes.Buffer
+	if err := WriteReport(&b, in); err != nil {
+		t.Fatal(err)
+	}
+	page := b.String()
+	for _, want := range []string{
+		"pressure [bara]</text>",          // every plot's x axis
+		"average co from Psat [1e-5/bar]", // co's y axis
+		"oil viscosity [mPa·s]</text>",
+		"Rs [sm3/sm3]</text>",
+		`<th class="n">p [bara]</th>`, // the residual and fluid tables
+		"<th scope=\"row\">reservoir temperature</th><td>104.4 °C</td>",
+		"temperature 104.4 °C is above the 15–80 range of Egbogah and Ng", // a range warning
+	} {
+		if !strings.Contains(page, want) {
+			t.Errorf("metric report lacks %q", want)
+		}
+	}
+	for _, bad := range []string{"pressure [psia]", "p [psia]", "[scf/STB]", "[1e-6/psi]", "220 °F is above"} {
+		if strings.Contains(page, bad) {
+			t.Errorf("metric report still shows %q", bad)
+		}
+	}
+	// The report's Pb, 2634.7 psia (fluid.csv of the published report), is 181.656 bara:
+	// 1 psi = 6.894757 kPa (NIST SP 811, 2008, App. B.8), 1 bar = 100 kPa.
+	if want := fmt.Sprintf("%.6g bara", 2634.7*6.894757/100); !strings.Contains(page, "<th scope=\"row\">saturation pressure (report)</th><td>"+want) {
+		t.Errorf("metric report lacks the saturation pressure %s", want)
+	}
+	// The field report is unchanged in its units.
+	in.Units = ""
+	b.Reset()
+	if err := WriteReport(&b, in); err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(b.String(), "pressure [psia]</text>") || strings.Contains(b.String(), "bara") {
+		t.Error("field report: want psia axes and no bara")
+	}
+}

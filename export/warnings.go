@@ -25,11 +25,16 @@ func (w Warning) Text(u Units) string {
 }
 
 func (w Warning) text(c *converter) string {
+	return fmt.Sprintf("%s (%s): %s", w.Property, w.Family, w.fact(c, (*converter).unit))
+}
+
+// fact is the out-of-range fact alone, in the converter's units, each named by unitName.
+func (w Warning) fact(c *converter, unitName func(*converter, lab.Quantity) string) string {
 	o := w.OutOfRange
 	if q, ok := catalogQuantity(o.Unit); ok && c.unit(q) != q.FieldUnit() {
-		o.Value, o.Min, o.Max, o.Unit = c.to(q, o.Value), c.to(q, o.Min), c.to(q, o.Max), c.unit(q)
+		o.Value, o.Min, o.Max, o.Unit = c.to(q, o.Value), c.to(q, o.Min), c.to(q, o.Max), unitName(c, q)
 	}
-	return fmt.Sprintf("%s (%s): %s", w.Property, w.Family, o)
+	return o.String()
 }
 
 // catalogQuantity is the quantity of a unit of the catalog's ranges ("°F", "psia", "scf/STB",
