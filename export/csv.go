@@ -136,8 +136,12 @@ func headerLines(t *Table, c *converter) []string {
 	}
 	for _, r := range t.Rows {
 		if r.NoBranch != "" {
+			why := r.NoBranch
+			if pu != lab.Pressure.FieldUnit() && r.noBranchCause != "" {
+				why = r.noBranchCause
+			}
 			lines = append(lines, fmt.Sprintf("note: the saturated row at %.6g %s (Rs %.6g %s) has no undersaturated branch (%s); simulators take the branch shape of the next row",
-				c.to(lab.Pressure, r.Pressure), pu, c.to(lab.GOR, r.Rs), c.unit(lab.GOR), r.NoBranch))
+				c.to(lab.Pressure, r.Pressure), pu, c.to(lab.GOR, r.Rs), c.unit(lab.GOR), why))
 		}
 	}
 	return append(lines, "caution: "+Caution)

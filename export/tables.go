@@ -77,6 +77,9 @@ type SatRow struct {
 	// needs Rs > 0 on the dead-oil row). Simulators then take the branch shape of the next
 	// record; the highest row always has a branch.
 	NoBranch string
+	// noBranchCause is the correlation's own complaint in NoBranch, without the fit engine's
+	// context (which quotes pressures in psia), for files in other units.
+	noBranchCause string
 }
 
 // GasRow is the dry gas at one pressure.
@@ -173,7 +176,7 @@ func BuildTable(m *fit.Model, src Source, opts TableOptions) (*Table, error) {
 			if err != nil && errors.Is(err, correlations.ErrInput) && i < len(t.Rows)-1 {
 				// The oil lies outside a family's domain above its bubble point: no branch.
 				// The file headers say so (headerLines), in their units.
-				r.Branch, r.NoBranch = nil, err.Error()
+				r.Branch, r.NoBranch, r.noBranchCause = nil, err.Error(), inputCause(err)
 				break
 			}
 			if err != nil {
@@ -365,4 +368,17 @@ func WaterAt(p, tF, salinity float64) (WaterPoint, error) {
 		return w, fmt.Errorf("export: tables: water viscosity at %.6g psia: %w", p, err)
 	}
 	return w, nil
+}
+
+// inputCause is the innermost error of err's chain that wraps correlations.ErrInput (the
+// correlation's "input out of the physical domain: Rsb = 0, want > 0 …"), or err's text.
+func inputCause(err error) string {
+	cause := err
+	for e := err; e != nil; e = errors.Unwrap(e) {
+		if errors.Unwrap(e) == correlations.ErrInput {
+			cause = e
+			break
+		}
+	}
+	return cause.Error()
 }

@@ -167,3 +167,27 @@ func TestReportMetric(t *testing.T) {
 		t.Error("field report: want psia axes and no bara")
 	}
 }
+
+// Every demo report's metric deck and CSV header is free of field units, the no-branch note
+// of TR-12's dead-oil row among them (its reason is the correlation's own complaint).
+func TestMetricHeadersOfDemoReports(t *testing.T) {
+	for _, id := range []string{"tr3-black", "tr7-light", "tr12-heavy"} {
+		tab := buildTable(t, loadTuned(t, id), TableOptions{Salinity: DefaultSalinity})
+		for _, f := range []Format{CSV, Deck} {
+			data, err := RenderTable(tab, f, Metric)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, l := range strings.Split(string(data), "\n") {
+				if !strings.HasPrefix(l, "#") && !strings.HasPrefix(l, "--") {
+					continue
+				}
+				for _, field := range []string{"°F", "degF", "psi", "scf", "STB", "lbm"} {
+					if strings.Contains(l, field) {
+						t.Errorf("%s %s metric header line quotes %s: %s", id, f, field, l)
+					}
+				}
+			}
+		}
+	}
+}
