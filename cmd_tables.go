@@ -205,9 +205,15 @@ salinity 30000 ppm (3 wt %); output to standard output.`)
 	for _, r := range t.Rows {
 		branch += len(r.Branch)
 	}
-	fmt.Fprintf(stdout, "%s written: %s, %s units, %d saturated rows with %d undersaturated, Pb %.1f psia\n", *out, f, u, len(t.Rows), branch, t.Pb)
+	pu := u.UnitSet().Pressure
+	pb, err := lab.FromField(lab.Pressure, pu, t.Pb)
+	if err != nil {
+		fmt.Fprintln(stderr, "labmatch:", err)
+		return exitData
+	}
+	fmt.Fprintf(stdout, "%s written: %s, %s units, %d saturated rows with %d undersaturated, Pb %.1f %s\n", *out, f, u, len(t.Rows), branch, pb, pu)
 	for _, w := range t.Warnings {
-		fmt.Fprintln(stdout, "outside the data:", w)
+		fmt.Fprintln(stdout, "outside the data:", w.Text(u))
 	}
 	fmt.Fprintln(stdout, "Correlation results are estimates; check them against the lab report and local practice.")
 	return exitOK

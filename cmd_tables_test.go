@@ -21,6 +21,7 @@ func TestTablesAndReportUsageErrors(t *testing.T) {
 		{"tables", "demo:tr3-black", "--step", "-5bar"},
 		{"report"},
 		{"report", "demo:tr3-black", "demo:tr7-light"},
+		{"report", "demo:tr3-black", "--units", "imperial"},
 	} {
 		code, _, stderr := runCLI(t, args...)
 		if code != exitUsage || !strings.Contains(stderr, "Usage") {
@@ -36,7 +37,7 @@ func TestTablesCommand(t *testing.T) {
 	if code != exitOK {
 		t.Fatalf("tables --out: exit %d: %s", code, stderr)
 	}
-	if !strings.Contains(out, "deck, metric units") || !strings.Contains(out, "estimates") {
+	if !strings.Contains(out, "deck, metric units") || !strings.Contains(out, "estimates") || !strings.Contains(out, " bara\n") || strings.Contains(out, "psia") {
 		t.Errorf("summary: %q", out)
 	}
 	b, err := os.ReadFile(deck)
@@ -137,5 +138,22 @@ func TestReportCommand(t *testing.T) {
 	}
 	if code, _, _ := runCLI(t, "report", "demo:tr12-heavy", "--out", out); code != exitData {
 		t.Errorf("overwrite without --force: exit %d", code)
+	}
+}
+
+func TestReportCommandMetric(t *testing.T) {
+	out := filepath.Join(t.TempDir(), "r.html")
+	code, _, stderr := runCLI(t, "report", "demo:tr7-light", "--units", "metric", "--out", out)
+	if code != exitOK {
+		t.Fatalf("report --units metric: exit %d: %s", code, stderr)
+	}
+	b, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	page := string(b)
+	if strings.Count(page, "pressure [bara]</text>") != 7 || strings.Contains(page, "pressure [psia]") || !strings.Contains(page, " °C</td>") {
+		t.Errorf("metric report: %d bara axes, psia axis %v, °C %v", strings.Count(page, "pressure [bara]</text>"),
+			strings.Contains(page, "pressure [psia]"), strings.Contains(page, " °C</td>"))
 	}
 }

@@ -47,31 +47,69 @@ func IDs(p Property) []string {
 	return ids
 }
 
-// Check compares the named inputs with the entry's data ranges and returns one message per
-// input outside them, for example "API 62 is above the 16–58 range of Glasø's data".
-// Inputs the entry has no range for, and names absent from values, are ignored.
-func (e Entry) Check(values map[string]float64) []string {
-	var msgs []string
+// Side says on which side of an entry's data range an input lies.
+type Side string
+
+// Sides of a range.
+const (
+	Below Side = "below"
+	Above Side = "above"
+)
+
+// OutOfRange is one input outside an entry's data range, as data, so that a caller can state
+// it in units of its own. Value, Min and Max are in Unit, the catalog's (field) unit of the
+// input.
+type OutOfRange struct {
+	Input   string  // the input's name, as in Range.Input: "temperature", "p", "API"
+	Value   float64 // the value checked
+	Min     float64 // smallest value in the original data
+	Max     float64 // largest value in the original data
+	Unit    string  // unit of Value, Min and Max: "°F", "psia", "" …
+	Side    Side    // Below or Above
+	Authors string  // the entry's authors, for the message
+}
+
+// String states the fact in words, for example "API 62 is above the 16–58 range of Glasø's
+// data", in the units the value carries (no unit is written for °API).
+func (o OutOfRange) String() string {
+	unit := ""
+	if o.Unit != "" && o.Unit != "°API" {
+		unit = " " + o.Unit
+	}
+	return fmt.Sprintf("%s %s%s is %s the %s–%s range of %s data",
+		o.Input, fmtNum(o.Value), unit, o.Side, fmtNum(o.Min), fmtNum(o.Max), possessive(o.Authors))
+}
+
+// CheckValues compares the named inputs with the entry's data ranges and returns one
+// OutOfRange per input outside them, in the order of the entry's ranges. Inputs the entry
+// has no range for, and names absent from values, are ignored.
+func (e Entry) CheckValues(values map[string]float64) []OutOfRange {
+	var out []OutOfRange
 	for _, r := range e.Ranges {
 		v, ok := values[r.Input]
 		if !ok || math.IsNaN(v) {
 			continue
 		}
-		var side string
+		var side Side
 		switch {
 		case v < r.Min:
-			side = "below"
+			side = Below
 		case v > r.Max:
-			side = "above"
+			side = Above
 		default:
 			continue
 		}
-		unit := ""
-		if r.Unit != "" && r.Unit != "°API" {
-			unit = " " + r.Unit
-		}
-		msgs = append(msgs, fmt.Sprintf("%s %s%s is %s the %s–%s range of %s data",
-			r.Input, fmtNum(v), unit, side, fmtNum(r.Min), fmtNum(r.Max), possessive(e.Authors)))
+		out = append(out, OutOfRange{Input: r.Input, Value: v, Min: r.Min, Max: r.Max, Unit: r.Unit, Side: side, Authors: e.Authors})
+	}
+	return out
+}
+
+// Check is CheckValues in words, in the catalog's field units: one message per input outside
+// the entry's data, for example "API 62 is above the 16–58 range of Glasø's data".
+func (e Entry) Check(values map[string]float64) []string {
+	var msgs []string
+	for _, o := range e.CheckValues(values) {
+		msgs = append(msgs, o.String())
 	}
 	return msgs
 }

@@ -119,7 +119,7 @@ func (t *Table) values(p, rs, bo, co, muo, rhoo, z, bg, mug float64) (rowValues,
 // headerLines are the comment lines that every table file starts with.
 func headerLines(t *Table, c *converter) []string {
 	pu := c.unit(lab.Pressure)
-	lines := append([]string{"black-oil tables at reservoir temperature"}, t.Source.Lines()...)
+	lines := append([]string{"black-oil tables at reservoir temperature"}, t.Source.lines(c, false)...)
 	lines = append(lines,
 		fmt.Sprintf("reservoir temperature %.6g %s; standard conditions %.6g %s, %.6g %s", c.to(lab.Temperature, t.Temperature), c.unit(lab.Temperature),
 			c.to(lab.Pressure, t.StdPressure), pu, c.to(lab.Temperature, t.StdTemp), c.unit(lab.Temperature)),
@@ -131,11 +131,18 @@ func headerLines(t *Table, c *converter) []string {
 		fmt.Sprintf("surface densities: oil %.6g, water %.6g, gas %.6g %s", c.to(lab.Density, t.Surface.Oil), c.to(lab.Density, t.Surface.Water),
 			c.to(lab.Density, t.Surface.Gas), c.unit(lab.Density)),
 	)
-	for _, w := range t.Warnings {
+	for _, w := range warningTexts(t.Warnings, c) {
 		lines = append(lines, "outside the data: "+w)
 	}
-	for _, n := range t.Notes {
-		lines = append(lines, "note: "+n)
+	for _, r := range t.Rows {
+		if r.NoBranch != "" {
+			why := r.NoBranch
+			if pu != lab.Pressure.FieldUnit() && r.noBranchCause != "" {
+				why = r.noBranchCause
+			}
+			lines = append(lines, fmt.Sprintf("note: the saturated row at %.6g %s (Rs %.6g %s) has no undersaturated branch (%s); simulators take the branch shape of the next row",
+				c.to(lab.Pressure, r.Pressure), pu, c.to(lab.GOR, r.Rs), c.unit(lab.GOR), why))
+		}
 	}
 	return append(lines, "caution: "+Caution)
 }

@@ -17,6 +17,7 @@ import (
 	"gonum.org/v1/plot/vg/vgsvg"
 
 	"labmatch/fit"
+	"labmatch/lab"
 )
 
 // The report's colours (a scheme of our own): deep teal for the tuned curve, copper for the
@@ -36,18 +37,26 @@ const (
 	plotPoints = 160 // pressures per curve
 )
 
-// plotAxis describes the y axis of a property plot: its label and the factor its values are
-// shown with (co in 1e−6/psi).
-func plotAxis(p fit.PropertyID) (label string, scale float64) {
+// plotAxis describes the y axis of a property plot in the converter's units: its label and
+// the factor that turns field values into the values shown (co in 1e−6/psi or 1e−5/bar).
+// Every y quantity converts by a scale alone (no offset).
+func plotAxis(p fit.PropertyID, c *converter) (label string, scale float64) {
+	per := func(q lab.Quantity) float64 { return c.to(q, 1) - c.to(q, 0) }
 	switch p {
 	case fit.Pb:
-		return "Rs [scf/STB]", 1
+		return "Rs [" + displayUnit(c, lab.GOR) + "]", per(lab.GOR)
 	case fit.Bo:
-		return "Bo [rb/STB]", 1
+		return "Bo [" + displayUnit(c, lab.FVF) + "]", per(lab.FVF)
 	case fit.Co:
-		return "average co from Psat [1e-6/psi]", 1e6
+		// Per bar a compressibility is 14.5 times its value per psi: one decade less.
+		show := 1e6
+		if c.unit(lab.Compressibility) != lab.Compressibility.FieldUnit() {
+			show = 1e5
+		}
+		unit := strings.TrimPrefix(displayUnit(c, lab.Compressibility), "1/")
+		return fmt.Sprintf("average co from Psat [1e-%.0f/%s]", math.Log10(show), unit), show * per(lab.Compressibility)
 	case fit.MuDead, fit.MuSat, fit.MuUnder:
-		return "oil viscosity [cP]", 1
+		return "oil viscosity [" + displayUnit(c, lab.Viscosity) + "]", per(lab.Viscosity)
 	case fit.Z:
 		return "Z", 1
 	}
@@ -56,9 +65,11 @@ func plotAxis(p fit.PropertyID) (label string, scale float64) {
 
 // propertyPlot draws one property: lab points (excluded ones marked), the published and the
 // tuned curve of its family, and Pb. It returns an SVG fragment for inlining in HTML.
-func propertyPlot(ds *fit.Dataset, res fit.Result, opts fit.Options) (string, error) {
+// Values are computed in field units and drawn in the converter's.
+func propertyPlot(ds *fit.Dataset, res fit.Result, opts fit.Options, c *converter) (string, error) {
 	prop := res.Property
-	label, scale := plotAxis(prop)
+	label, scale := plotAxis(prop, c)
+	px := func(p float64) float64 { return c.to(lab.Pressure, p) }
 	// Pressure range: from atmospheric (or Psat, Pb where the curve starts) to a little past
 	// the highest lab point.
 	lo, hi := 0.0, ds.Pb
@@ -97,12 +108,19 @@ func propertyPlot(ds *fit.Dataset, res fit.Result, opts fit.Options) (string, er
 	if err != nil {
 		return "", err
 	}
+	// From here on pressures are the axis's: xs for the curves, pb, xmin and xmax.
+	xs := make([]float64, len(ps))
+	for i, p := range ps {
+		xs[i] = px(p)
+	}
+	xmin, xmax = px(xmin), px(xmax)
+	pb := px(ds.Pb)
 
 	p := plot.New()
 	sans := func(size vg.Length) font.Font {
 		return font.Font{Typeface: "Liberation", Variant: "Sans", Size: size}
 	}
-	p.X.Label.Text = "pressure [psia]"
+	p.X.Label.Text = "pressure [" + displayUnit(c, lab.Pressure) + "]"
 	p.Y.Label.Text = label
 	p.X.Label.TextStyle.Font, p.Y.Label.TextStyle.Font = sans(10), sans(10)
 	p.X.Tick.Label.Font, p.Y.Tick.Label.Font = sans(9), sans(9)
@@ -129,9 +147,9 @@ func propertyPlot(ds *fit.Dataset, res fit.Result, opts fit.Options) (string, er
 	}
 	var used, excluded plotter.XYs
 	for _, r := range res.Residuals {
-		x, y := r.Pressure, r.Lab*scale
+		x, y := px(r.Pressure), r.Lab*scale
 		if r.Quantity == "Pb" { // the bubble point is a point of the Rs curve at Rsb
-			y = ds.Rsb
+			y = ds.Rsb * scale
 		}
 		track(y)
 		if r.Excluded {
@@ -151,23 +169,34 @@ func propertyPlot(ds *fit.Dataset, res fit.Result, opts fit.Options) (string, er
 	if prop == fit.Pb {
 		p.Y.Min = math.Max(p.Y.Min, 0)
 	}
-	occupied := append(append(plotter.XYs{}, used...), excluded...)
-	if ds.Pb > xmin && ds.Pb < xmax { // the Pb line and its label
-		for k := 0; k <= 10; k++ {
-			occupied = append(occupied, plotter.XY{X: ds.Pb, Y: p.Y.Min + float64(k)/10*(p.Y.Max-p.Y.Min)})
+	place := func() (top, left bool, n int) {
+		occupied := append(append(plotter.XYs{}, used...), excluded...)
+		if pb > xmin && pb < xmax { // the Pb line and its label
+			for k := 0; k <= 10; k++ {
+				occupied = append(occupied, plotter.XY{X: pb, Y: p.Y.Min + float64(k)/10*(p.Y.Max-p.Y.Min)})
+			}
 		}
+		return legendCorner(xs, [][]float64{pub, tun}, occupied, scale, xmin, xmax, p.Y.Min, p.Y.Max)
 	}
-	p.Legend.Top, p.Legend.Left = legendCorner(ps, [][]float64{pub, tun}, occupied, scale, xmin, xmax, p.Y.Min, p.Y.Max)
+	top, left, n := place()
+	if n > 0 {
+		// Every corner holds a curve, a lab point or the Pb line: raise the top of the axis
+		// by half its range, which leaves the top third to the legend (the data end below
+		// 2/3 of the new range), and place it again, away from the Pb line.
+		p.Y.Max += 0.5 * (p.Y.Max - p.Y.Min)
+		top, left, _ = place()
+	}
+	p.Legend.Top, p.Legend.Left = top, left
 
 	// Pb: a dotted vertical line with its label.
-	if ds.Pb > xmin && ds.Pb < xmax {
-		pbLine, err := plotter.NewLine(plotter.XYs{{X: ds.Pb, Y: p.Y.Min}, {X: ds.Pb, Y: p.Y.Max}})
+	if pb > xmin && pb < xmax {
+		pbLine, err := plotter.NewLine(plotter.XYs{{X: pb, Y: p.Y.Min}, {X: pb, Y: p.Y.Max}})
 		if err != nil {
 			return "", err
 		}
 		pbLine.Color, pbLine.Width, pbLine.Dashes = colPb, vg.Points(1), []vg.Length{vg.Points(1.5), vg.Points(2.5)}
 		p.Add(pbLine)
-		lab, err := plotter.NewLabels(plotter.XYLabels{XYs: plotter.XYs{{X: ds.Pb, Y: p.Y.Max}}, Labels: []string{" Pb"}})
+		lab, err := plotter.NewLabels(plotter.XYLabels{XYs: plotter.XYs{{X: pb, Y: p.Y.Max}}, Labels: []string{" Pb"}})
 		if err != nil {
 			return "", err
 		}
@@ -180,7 +209,7 @@ func propertyPlot(ds *fit.Dataset, res fit.Result, opts fit.Options) (string, er
 	}
 	addCurve := func(vals []float64, c color.Color, dashes []vg.Length, width vg.Length, name string) error {
 		first := true
-		for _, seg := range segments(ps, vals, scale) {
+		for _, seg := range segments(xs, vals, scale) {
 			l, err := plotter.NewLine(seg)
 			if err != nil {
 				return err
@@ -267,8 +296,9 @@ func renderSVG(p *plot.Plot) (string, error) {
 }
 
 // legendCorner picks the corner of the plot that holds the fewest curve and lab points, so
-// that the legend hides nothing (top corners first on a tie).
-func legendCorner(ps []float64, curves [][]float64, pts plotter.XYs, scale, x0, x1, y0, y1 float64) (top, left bool) {
+// that the legend hides nothing (top corners first on a tie), and gives their weighted count
+// there (lab points count four).
+func legendCorner(ps []float64, curves [][]float64, pts plotter.XYs, scale, x0, x1, y0, y1 float64) (top, left bool, n int) {
 	type corner struct{ top, left bool }
 	count := func(c corner, x, y float64) int {
 		fx, fy := (x-x0)/(x1-x0), (y-y0)/(y1-y0)
@@ -296,7 +326,7 @@ func legendCorner(ps []float64, curves [][]float64, pts plotter.XYs, scale, x0, 
 			best, bestN = c, n
 		}
 	}
-	return best.top, best.left
+	return best.top, best.left, bestN
 }
 
 // tickFormat labels the default ticks with up to six significant digits and no trailing

@@ -27,6 +27,10 @@ type ReportInput struct {
 	Ranking   fit.Ranking // nil: computed with Options
 	Origin    string      // how the parameters were obtained, in words
 	Generated time.Time   // the date printed; zero: now
+	// Units of every number, table and axis the report shows; "" = Field. The tuning
+	// parameters keep the fit engine's definitions (a shift in its field unit, with the
+	// equivalent in these units beside it).
+	Units Units
 }
 
 //go:embed report.html.tmpl
@@ -93,7 +97,7 @@ type propView struct {
 	Params, Flags, OutOfRange                []string
 	Ladder                                   []ladderRow
 	Residuals                                []residRow
-	Unit                                     string
+	Unit, PUnit                              string
 }
 
 type ladderRow struct {
@@ -123,6 +127,8 @@ type reportView struct {
 	Fluid                                                            []stateRow
 	Notes, Warnings                                                  []string
 	Untuned                                                          []string
+	Units                                                            Units
+	UnitNote                                                         string
 }
 
 func newReportView(in ReportInput) (*reportView, error) {
@@ -149,8 +155,28 @@ func newReportView(in ReportInput) (*reportView, error) {
 	if name == "" {
 		name = r.Fluid.Sample
 	}
+	u := in.Units
+	if u == "" {
+		u = Field
+	}
+	if _, err := ParseUnits(string(u)); err != nil {
+		return nil, fmt.Errorf("export: report: %w", err)
+	}
+	c := &converter{units: u.set()}
+	// val formats a field value of q in the report's units with its unit: "3985.1 bara".
+	val := func(q lab.Quantity, format string, x float64) string {
+		return fmt.Sprintf(format+" %s", c.to(q, x), displayUnit(c, q))
+	}
 	v := &reportView{Title: "PVT report: " + name, Sample: name, Tool: in.Tool, Date: when.UTC().Format("2 January 2006"),
-		Fingerprint: r.Fingerprint, Origin: in.Origin, Caution: Caution}
+		Fingerprint: r.Fingerprint, Origin: in.Origin, Caution: Caution, Units: u}
+	if u == Metric {
+		var names []string
+		for _, q := range []lab.Quantity{lab.Pressure, lab.Temperature, lab.GOR, lab.FVF, lab.Viscosity, lab.Density, lab.Compressibility} {
+			names = append(names, displayUnit(c, q))
+		}
+		v.UnitNote = "Metric units: " + strings.Join(names, ", ") + ". The QC findings, the fluid-type rule, the no-fit remarks and the leave-one-out notes are quoted from the checks in field units (psia, °F, scf/STB, rb/STB, cP). " +
+			"The tuning parameters are the fit engine's: multipliers and bends are ratios, refitted coefficients belong to the published equations in field units, and a shift is given in its field unit with the metric equivalent beside it."
+	}
 	if v.Fingerprint == "" {
 		v.Fingerprint = "n/a (report built in memory)"
 	}
@@ -158,19 +184,19 @@ func newReportView(in ReportInput) (*reportView, error) {
 	// Fluid summary.
 	add := func(k, val string) { v.Summary = append(v.Summary, kv{k, val}) }
 	add("sample", name)
-	add("reservoir temperature", fmt.Sprintf("%.4g °F", r.Fluid.Temperature))
-	add("saturation pressure (report)", fmt.Sprintf("%.6g psia", r.Fluid.Pb))
+	add("reservoir temperature", val(lab.Temperature, "%.4g", r.Fluid.Temperature))
+	add("saturation pressure (report)", val(lab.Pressure, "%.6g", r.Fluid.Pb))
 	add("stock-tank oil gravity", fmt.Sprintf("%.4g °API", r.Fluid.API))
 	add("separator gas gravity", fmt.Sprintf("%.4g (air = 1)", ds.Oil.GasGravity))
 	if t, ok := r.SelectedSeparator(); ok {
 		sep := "test " + t.ID
 		if len(t.Stages) > 1 {
-			sep += fmt.Sprintf(", first stage %.4g psia and %.4g °F", t.Stages[0].Pressure, t.Stages[0].Temperature)
+			sep += fmt.Sprintf(", first stage %s and %s", val(lab.Pressure, "%.4g", t.Stages[0].Pressure), val(lab.Temperature, "%.4g", t.Stages[0].Temperature))
 		}
 		add("separator test used", sep)
 	}
-	add("Rsb (separator basis)", fmt.Sprintf("%.5g scf/STB", ds.Rsb))
-	add("Bob (separator basis)", fmt.Sprintf("%.5g rb/STB", ds.Bob))
+	add("Rsb (separator basis)", val(lab.GOR, "%.5g", ds.Rsb))
+	add("Bob (separator basis)", val(lab.FVF, "%.5g", ds.Bob))
 	if ft, why := lab.Classify(ds.Rsb, r.Fluid.API, ds.Bob); ft != lab.UnknownFluid {
 		s := ft.String()
 		if why != "" {
@@ -184,12 +210,12 @@ func newReportView(in ReportInput) (*reportView, error) {
 	if r.Fluid.H2S > 0 || r.Fluid.CO2 > 0 || r.Fluid.N2 > 0 {
 		add("non-hydrocarbons in the gas", fmt.Sprintf("H2S %.3g, CO2 %.3g, N2 %.3g mol %%", r.Fluid.H2S, r.Fluid.CO2, r.Fluid.N2))
 	}
-	add("standard conditions", fmt.Sprintf("%.5g psia, %.4g °F", ds.StdPressure, ds.StdTemp))
+	add("standard conditions", val(lab.Pressure, "%.5g", ds.StdPressure)+", "+val(lab.Temperature, "%.4g", ds.StdTemp))
 	tuned := func(k, val string) { v.Tuned = append(v.Tuned, kv{k, val}) }
-	tuned("bubble point Pb", fmt.Sprintf("%.6g psia", m.Pb))
-	tuned("Bo at Pb", fmt.Sprintf("%.5g rb/STB", m.Bob))
-	tuned("dead-oil viscosity", fmt.Sprintf("%.4g cP", m.MuDead))
-	tuned("oil viscosity at Pb", fmt.Sprintf("%.4g cP", m.MuB))
+	tuned("bubble point Pb", val(lab.Pressure, "%.6g", m.Pb))
+	tuned("Bo at Pb", val(lab.FVF, "%.5g", m.Bob))
+	tuned("dead-oil viscosity", val(lab.Viscosity, "%.4g", m.MuDead))
+	tuned("oil viscosity at Pb", val(lab.Viscosity, "%.4g", m.MuB))
 
 	// QC findings.
 	fs := lab.Check(r)
@@ -226,7 +252,7 @@ func newReportView(in ReportInput) (*reportView, error) {
 			row.Published, row.Tuned, row.LOO, row.Mult = pct(e.AAREPublished), pct(e.AARETuned), pct(e.AARELOO), numPtr(e.Multiplier, "%.4g")
 			var rem []string
 			if !e.InRange {
-				rem = append(rem, "outside its data: "+strings.Join(e.OutOfRange, "; "))
+				rem = append(rem, "outside its data: "+strings.Join(outOfRange(ds, p, e.Family, e.OutOfRange, c), "; "))
 			}
 			rem = append(rem, e.Flags...)
 			row.Remarks = strings.Join(rem, "; ")
@@ -241,22 +267,23 @@ func newReportView(in ReportInput) (*reportView, error) {
 		if !ok {
 			continue
 		}
-		params := paramList(res)
+		params := paramList(res, c)
 		v.Params = append(v.Params, paramRow{Prop: string(p), Title: propertyTitle(p), Family: res.Family, Depth: orNA(string(res.Depth)),
 			LOO: pct(res.LOO), Published: fmt.Sprintf("%.2f", res.Published.AARE), Tuned: fmt.Sprintf("%.2f", res.Tuned.AARE),
 			Params: params, Flags: res.Flags, NoFit: res.NoFit})
-		svg, err := propertyPlot(ds, res, in.Options)
+		svg, err := propertyPlot(ds, res, in.Options, c)
 		if err != nil {
 			return nil, err
 		}
 		pv := propView{ID: "prop-" + string(p), Title: propertyTitle(p), Family: res.Family, Depth: orNA(string(res.Depth)),
-			SVG: template.HTML(svg), Params: params, Flags: res.Flags, OutOfRange: res.OutOfRange, NoFit: res.NoFit}
+			SVG: template.HTML(svg), Params: params, Flags: res.Flags, OutOfRange: outOfRange(ds, p, res.Family, res.OutOfRange, c), NoFit: res.NoFit,
+			PUnit: displayUnit(c, lab.Pressure)}
 		pv.Caption = fmt.Sprintf("%s: lab points (separator basis; crosses: excluded), the published %s correlation (dashed) and as tuned (solid, depth %s)",
 			p, res.Family, pv.Depth)
 		if p == fit.Co {
-			pv.Caption += fmt.Sprintf(", above the CCE's saturation pressure %.6g psia.", ds.CCEPsat)
+			pv.Caption += fmt.Sprintf(", above the CCE's saturation pressure %s.", val(lab.Pressure, "%.6g", ds.CCEPsat))
 		} else {
-			pv.Caption += fmt.Sprintf("; the dotted line marks the report's Pb (%.6g psia).", ds.Pb)
+			pv.Caption += fmt.Sprintf("; the dotted line marks the report's Pb (%s).", val(lab.Pressure, "%.6g", ds.Pb))
 		}
 		for _, rg := range res.Ladder {
 			lr := ladderRow{Depth: string(rg.Depth), Chosen: rg.Chosen}
@@ -265,7 +292,7 @@ func newReportView(in ReportInput) (*reportView, error) {
 				lr.Skipped, lr.Free, lr.Params, lr.AARE, lr.MaxARE, lr.LOO, lr.Note = true, "–", "–", "–", "–", "–", "skipped: "+rg.Skipped
 			default:
 				lr.Free = fmt.Sprint(rg.Free)
-				lr.Params = rungParams(p, rg)
+				lr.Params = rungParams(p, rg, res.ShiftUnit)
 				lr.AARE, lr.MaxARE, lr.LOO = fmt.Sprintf("%.2f", rg.Tuned.AARE), fmt.Sprintf("%.2f", rg.Tuned.MaxARE), pct(rg.LOO)
 				lr.Note = rg.LOONote
 				if len(rg.Flags) > 0 {
@@ -275,8 +302,16 @@ func newReportView(in ReportInput) (*reportView, error) {
 			pv.Ladder = append(pv.Ladder, lr)
 		}
 		for i, rr := range res.Residuals {
-			row := residRow{Index: i, Quantity: rr.Quantity, Pressure: fmt.Sprintf("%.1f", rr.Pressure), Lab: fmt.Sprintf("%.5g", rr.Lab),
-				Published: fmt.Sprintf("%.5g", rr.Published), Tuned: fmt.Sprintf("%.5g", rr.Tuned), Unit: rr.Unit,
+			conv, unit := func(x float64) float64 { return x }, rr.Unit
+			if q, ok := catalogQuantity(rr.Unit); ok {
+				conv, unit = func(x float64) float64 { return c.to(q, x) }, displayUnit(c, q)
+			}
+			pd := "%.1f"
+			if u == Metric {
+				pd = "%.2f" // a bar is 14.5 psi
+			}
+			row := residRow{Index: i, Quantity: rr.Quantity, Pressure: fmt.Sprintf(pd, c.to(lab.Pressure, rr.Pressure)), Lab: fmt.Sprintf("%.5g", conv(rr.Lab)),
+				Published: fmt.Sprintf("%.5g", conv(rr.Published)), Tuned: fmt.Sprintf("%.5g", conv(rr.Tuned)), Unit: unit,
 				REPub: relPct(rr.Published, rr.Lab), RETuned: relPct(rr.Tuned, rr.Lab), Excluded: rr.Excluded}
 			if rr.Source != "" {
 				row.Source = rr.Source
@@ -293,7 +328,13 @@ func newReportView(in ReportInput) (*reportView, error) {
 	}
 
 	// The tuned fluid at a few pressures.
-	v.FluidHead = []string{"p [psia]", "Rs [scf/STB]", "Bo [rb/STB]", "oil viscosity [cP]", "oil density [lbm/ft3]", "Z", "Bg [rcf/scf]", "gas viscosity [cP]"}
+	head := func(name string, q lab.Quantity) string { return name + " [" + displayUnit(c, q) + "]" }
+	v.FluidHead = []string{head("p", lab.Pressure), head("Rs", lab.GOR), head("Bo", lab.FVF), head("oil viscosity", lab.Viscosity),
+		head("oil density", lab.Density), "Z", head("Bg", lab.GasFVF), head("gas viscosity", lab.Viscosity)}
+	pd := "%.1f"
+	if u == Metric {
+		pd = "%.2f"
+	}
 	for _, p := range fluidPressures(m.Pb, MaxLabPressure(r), ds.StdPressure) {
 		s, err := m.At(p)
 		if err != nil {
@@ -303,12 +344,48 @@ func newReportView(in ReportInput) (*reportView, error) {
 		if p == m.Pb {
 			mark = "Pb"
 		}
-		v.Fluid = append(v.Fluid, stateRow{Mark: mark, Cells: []string{fmt.Sprintf("%.1f", p), fmt.Sprintf("%.4g", s.Rs), fmt.Sprintf("%.5g", s.Bo),
-			fmt.Sprintf("%.4g", s.OilViscosity), fmt.Sprintf("%.4g", s.OilDensity), fmt.Sprintf("%.4g", s.Z), fmt.Sprintf("%.4g", s.Bg), fmt.Sprintf("%.4g", s.GasViscosity)}})
+		v.Fluid = append(v.Fluid, stateRow{Mark: mark, Cells: []string{fmt.Sprintf(pd, c.to(lab.Pressure, p)), fmt.Sprintf("%.4g", c.to(lab.GOR, s.Rs)),
+			fmt.Sprintf("%.5g", c.to(lab.FVF, s.Bo)), fmt.Sprintf("%.4g", c.to(lab.Viscosity, s.OilViscosity)), fmt.Sprintf("%.4g", c.to(lab.Density, s.OilDensity)),
+			fmt.Sprintf("%.4g", s.Z), fmt.Sprintf("%.4g", c.to(lab.GasFVF, s.Bg)), fmt.Sprintf("%.4g", c.to(lab.Viscosity, s.GasViscosity))}})
 	}
 	v.Notes = ds.Notes
-	v.Warnings = m.RangeWarnings()
+	for _, w := range ModelWarnings(m) {
+		v.Warnings = append(v.Warnings, fmt.Sprintf("%s (%s): %s", w.Property, w.Family, w.fact(c, displayUnit)))
+	}
+	if c.err != nil {
+		return nil, fmt.Errorf("export: report: %w", c.err)
+	}
 	return v, nil
+}
+
+// displayUnit is the unit of q as the report prints it: the unit set's name, with °F, °C
+// and mPa·s for degF, degC and mPa.s.
+func displayUnit(c *converter, q lab.Quantity) string {
+	switch u := c.unit(q); u {
+	case "degF":
+		return "°F"
+	case "degC":
+		return "°C"
+	case "mPa.s":
+		return "mPa·s"
+	default:
+		return u
+	}
+}
+
+// outOfRange states a family's inputs outside its data in the converter's units. The fit
+// engine's own text (field units) is kept when the catalog's facts do not match it, so that
+// nothing it found is dropped.
+func outOfRange(ds *fit.Dataset, p fit.PropertyID, family string, engine []string, c *converter) []string {
+	ws := DatasetWarnings(ds, p, family)
+	if len(ws) != len(engine) {
+		return engine
+	}
+	var out []string
+	for _, w := range ws {
+		out = append(out, w.fact(c, displayUnit))
+	}
+	return out
 }
 
 // fluidPressures picks the pressures of the tuned-fluid table: atmospheric, five below Pb,
@@ -348,7 +425,7 @@ func propertyTitle(p fit.PropertyID) string {
 }
 
 // paramList gives a result's parameters with their 95 % intervals, in words.
-func paramList(res fit.Result) []string {
+func paramList(res fit.Result, c *converter) []string {
 	q := res.Params
 	var out []string
 	name := "multiplier"
@@ -360,7 +437,17 @@ func paramList(res fit.Result) []string {
 		out[0] += " (fixed by the report's Pb)"
 	}
 	if res.Shifted || q.Shift != 0 {
-		out = append(out, strings.TrimSpace(fmt.Sprintf("shift %.4g %s", q.Shift, res.ShiftUnit))+interval95(res, "shift", "%.4g"))
+		s := strings.TrimSpace(fmt.Sprintf("shift %.4g %s", q.Shift, res.ShiftUnit)) + interval95(res, "shift", "%.4g")
+		if sq, ok := catalogQuantity(res.ShiftUnit); ok && c.unit(sq) != sq.FieldUnit() {
+			// A shift is a difference: it converts by the scale of the units alone.
+			d := func(x float64) float64 { return c.to(sq, x) - c.to(sq, 0) }
+			s += fmt.Sprintf(" (%.4g %s", d(q.Shift), displayUnit(c, sq))
+			if ci, ok := res.CI95["shift"]; ok {
+				s += fmt.Sprintf(", 95 %% [%.4g, %.4g]", d(ci[0]), d(ci[1]))
+			}
+			s += ")"
+		}
+		out = append(out, s)
 	}
 	if q.Bend != 0 {
 		out = append(out, fmt.Sprintf("bend %.5g (exponent on Rs/Rsb below Pb)%s", q.Bend, interval95(res, "bend", "%.5g")))
@@ -397,7 +484,7 @@ func interval95(res fit.Result, name, format string) string {
 }
 
 // rungParams gives a rung's parameter values briefly.
-func rungParams(p fit.PropertyID, rg fit.Rung) string {
+func rungParams(p fit.PropertyID, rg fit.Rung, shiftUnit string) string {
 	q := rg.Params
 	if rg.Depth == fit.DepthPublished {
 		return "0 (published)"
@@ -409,7 +496,7 @@ func rungParams(p fit.PropertyID, rg fit.Rung) string {
 		s = fmt.Sprintf("%d: m %.4g", rg.Free, q.Multiplier)
 	}
 	if q.Shift != 0 {
-		s += fmt.Sprintf(", s %.4g", q.Shift)
+		s += strings.TrimRight(fmt.Sprintf(", s %.4g %s", q.Shift, shiftUnit), " ")
 	}
 	if q.Bend != 0 {
 		s += fmt.Sprintf(", bend %.4g", q.Bend)

@@ -3,6 +3,7 @@ package export
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"labmatch/correlations"
 	"labmatch/fit"
@@ -48,8 +49,12 @@ func NewSource(tool, report, fingerprint, origin string, m *fit.Model, results m
 	return s
 }
 
-// Lines describes the source in a few lines of text for a file header.
-func (s Source) Lines() []string {
+// Lines describes the source in a few lines of text for a file header, in field units.
+func (s Source) Lines() []string { return s.lines(&converter{units: lab.FieldUnits()}, true) }
+
+// lines is Lines with each shift stated in the converter's unit, and also in the unit the fit
+// engine tunes it in when engine is set.
+func (s Source) lines(c *converter, engine bool) []string {
 	out := []string{fmt.Sprintf("written by %s from the report %q", s.Tool, s.Report)}
 	if s.Fingerprint != "" {
 		out = append(out, "report files SHA-256 "+s.Fingerprint)
@@ -58,13 +63,19 @@ func (s Source) Lines() []string {
 		out = append(out, "parameters: "+s.Origin)
 	}
 	for _, p := range s.Properties {
-		out = append(out, p.Describe())
+		out = append(out, p.describe(c, engine))
 	}
 	return out
 }
 
-// Describe gives one property's family, depth and parameters in words.
+// Describe gives one property's family, depth and parameters in words, in field units.
 func (p PropertySource) Describe() string {
+	return p.describe(&converter{units: lab.FieldUnits()}, true)
+}
+
+// describe is Describe with the shift stated in the converter's unit, and also in the unit
+// the fit engine tunes it in (the tuning file's) when engine is set.
+func (p PropertySource) describe(c *converter, engine bool) string {
 	if p.Untuned {
 		return fmt.Sprintf("%-8s %s (no lab data: published, untuned)", p.Property, p.Family)
 	}
@@ -80,7 +91,7 @@ func (p PropertySource) Describe() string {
 		s += fmt.Sprintf("multiplier %.6g", q.Multiplier)
 	}
 	if p.Shifted {
-		s += fmt.Sprintf(", shift %.6g %s", q.Shift, p.ShiftUnit)
+		s += ", shift " + shiftText(q.Shift, p.ShiftUnit, c, "%.6g", engine)
 	}
 	if q.Bend != 0 {
 		s += fmt.Sprintf(", bend %.6g", q.Bend)
@@ -216,4 +227,19 @@ func WithRecorded(applied, stored map[fit.PropertyID]fit.Result) map[fit.Propert
 		applied[p] = r
 	}
 	return applied
+}
+
+// shiftText states a shift of the fit engine's unit in the converter's unit; with engine set
+// in both, the engine's first: "-4.54e-06 1/psi (-6.585e-05 1/bar)". A shift is a difference,
+// so it converts by the scale of the units alone (no offset).
+func shiftText(v float64, unit string, c *converter, format string, engine bool) string {
+	q, ok := catalogQuantity(unit)
+	if !ok || c.unit(q) == q.FieldUnit() {
+		return strings.TrimSpace(fmt.Sprintf(format+" %s", v, unit))
+	}
+	conv := fmt.Sprintf(format+" %s", c.to(q, v)-c.to(q, 0), c.unit(q))
+	if !engine {
+		return conv
+	}
+	return fmt.Sprintf(format+" %s (%s)", v, unit, conv)
 }

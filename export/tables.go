@@ -61,8 +61,7 @@ type Table struct {
 	Gas         []GasRow // rising pressure: every saturated pressure and the top branch pressure
 	Water       Water
 	Surface     SurfaceDensities
-	Warnings    []string // inputs outside the data of the families used
-	Notes       []string // what the table leaves out and why
+	Warnings    []Warning // inputs outside the data of the families used and of the water correlations
 }
 
 // SatRow is one saturated row (the oil at its bubble point) and its undersaturated branch.
@@ -78,6 +77,9 @@ type SatRow struct {
 	// needs Rs > 0 on the dead-oil row). Simulators then take the branch shape of the next
 	// record; the highest row always has a branch.
 	NoBranch string
+	// noBranchCause is the correlation's own complaint in NoBranch, without the fit engine's
+	// context (which quotes pressures in psia), for files in other units.
+	noBranchCause string
 }
 
 // GasRow is the dry gas at one pressure.
@@ -173,8 +175,8 @@ func BuildTable(m *fit.Model, src Source, opts TableOptions) (*Table, error) {
 			s, err := m.Undersaturated(r.Rs, p)
 			if err != nil && errors.Is(err, correlations.ErrInput) && i < len(t.Rows)-1 {
 				// The oil lies outside a family's domain above its bubble point: no branch.
-				r.Branch, r.NoBranch = nil, err.Error()
-				t.Notes = append(t.Notes, fmt.Sprintf("the saturated row at %.6g psia (Rs %.6g scf/STB) has no undersaturated branch (%v); simulators take the branch shape of the next row", r.Pressure, r.Rs, err))
+				// The file headers say so (headerLines), in their units.
+				r.Branch, r.NoBranch, r.noBranchCause = nil, err.Error(), inputCause(err)
 				break
 			}
 			if err != nil {
@@ -198,7 +200,7 @@ func BuildTable(m *fit.Model, src Source, opts TableOptions) (*Table, error) {
 	}
 	t.Surface.Oil = oilSurfaceDensityPerGravity * m.Oil.OilGravity()
 	t.Surface.Gas = gasSurfaceDensityPerGravity * m.Oil.GasGravity
-	t.Warnings = append(m.RangeWarnings(), waterWarnings(t.Water, m.Oil.Temperature, pmax)...)
+	t.Warnings = append(ModelWarnings(m), waterWarnings(t.Water, m.Oil.Temperature, pmax)...)
 	return t, nil
 }
 
@@ -368,23 +370,15 @@ func WaterAt(p, tF, salinity float64) (WaterPoint, error) {
 	return w, nil
 }
 
-// waterWarnings checks the water correlations' data ranges at the table's conditions.
-func waterWarnings(w Water, tF, pmax float64) []string {
-	in := map[string]float64{"temperature": tF, "p": w.RefPressure, "salinity": w.Salinity, "salt concentration": w.Concentration}
-	var ws []string
-	for _, p := range []correlations.Property{correlations.WaterFVF, correlations.WaterCompressibility, correlations.WaterViscosity, correlations.WaterDensity} {
-		for _, id := range correlations.IDs(p) {
-			e, err := correlations.Lookup(p, id)
-			if err != nil {
-				continue
-			}
-			for _, msg := range e.Check(in) {
-				ws = append(ws, fmt.Sprintf("%s (%s): %s", p, id, msg))
-			}
+// inputCause is the innermost error of err's chain that wraps correlations.ErrInput (the
+// correlation's "input out of the physical domain: Rsb = 0, want > 0 …"), or err's text.
+func inputCause(err error) string {
+	cause := err
+	for e := err; e != nil; e = errors.Unwrap(e) {
+		if errors.Unwrap(e) == correlations.ErrInput {
+			cause = e
+			break
 		}
 	}
-	if pmax > 5000 {
-		ws = append(ws, fmt.Sprintf("bw (mccain): the table reaches %.0f psia, above the 5000 psia of McCain's Bw data", pmax))
-	}
-	return ws
+	return cause.Error()
 }

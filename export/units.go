@@ -25,6 +25,9 @@ func ParseUnits(s string) (Units, error) {
 	return "", fmt.Errorf("export: units %q: want field or metric", s)
 }
 
+// UnitSet returns the units of each quantity in u: lab.MetricUnits or lab.FieldUnits.
+func (u Units) UnitSet() lab.UnitSet { return u.set() }
+
 func (u Units) set() lab.UnitSet {
 	if u == Metric {
 		return lab.MetricUnits()
