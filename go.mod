@@ -45,5 +45,4 @@ require (
 	golang.org/x/image v0.25.0 // indirect
 	golang.org/x/sys v0.38.0 // indirect
 	golang.org/x/text v0.28.0 // indirect
-	golang.org/x/tools v0.35.0 // indirect
 )
