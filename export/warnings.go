@@ -2,7 +2,6 @@ package export
 
 import (
 	"fmt"
-	"strings"
 
 	"labmatch/correlations"
 	"labmatch/fit"
@@ -61,18 +60,14 @@ func warningTexts(ws []Warning, c *converter) []string {
 }
 
 // ModelWarnings lists, for every family of the model, the inputs outside the range of the
-// family's original data: fit.Model.RangeWarnings as data. The inputs are the ones the fit
-// engine checks (the oil's API, gas gravity and temperature, Rsb and Pb;
-// TestModelWarningsMatchFit keeps the two in step).
+// family's original data: fit.Model.RangeWarnings as data, on the same inputs
+// (TestModelWarningsMatchFit keeps the two in step).
 func ModelWarnings(m *fit.Model) []Warning {
-	in := map[string]float64{
-		"API": m.Oil.API, "gas gravity": m.Oil.GasGravity, "temperature": m.Oil.Temperature,
-		"Rsb": m.Rsb, "Pb": m.Pb, "Rs": m.Rsb, "p": m.Pb,
-	}
+	in := m.RangeInputs()
 	var ws []Warning
 	for _, p := range fit.Properties {
 		fam := m.Families[p]
-		e, err := familyEntry(p, fam)
+		e, err := fit.CatalogEntry(p, fam)
 		if err != nil {
 			continue
 		}
@@ -86,11 +81,8 @@ func ModelWarnings(m *fit.Model) []Warning {
 // DatasetWarnings is ModelWarnings for one family of a property on a dataset (the report's
 // Pb and Rsb): fit.RankEntry.OutOfRange as data.
 func DatasetWarnings(ds *fit.Dataset, p fit.PropertyID, family string) []Warning {
-	in := map[string]float64{
-		"API": ds.Oil.API, "gas gravity": ds.Oil.GasGravity, "temperature": ds.Oil.Temperature,
-		"Rsb": ds.Rsb, "Pb": ds.Pb, "Rs": ds.Rsb, "p": ds.Pb,
-	}
-	e, err := familyEntry(p, family)
+	in := ds.RangeInputs()
+	e, err := fit.CatalogEntry(p, family)
 	if err != nil {
 		return nil
 	}
@@ -99,34 +91,6 @@ func DatasetWarnings(ds *fit.Dataset, p fit.PropertyID, family string) []Warning
 		ws = append(ws, Warning{Property: string(p), Family: family, OutOfRange: o})
 	}
 	return ws
-}
-
-// familyEntry is the catalog entry of a property's family; for z the entry of its Z method
-// ("sutton+dak" → dak), as the fit engine checks it.
-func familyEntry(p fit.PropertyID, family string) (correlations.Entry, error) {
-	var cp correlations.Property
-	switch p {
-	case fit.Pb:
-		cp = correlations.SolutionGas
-	case fit.Bo:
-		cp = correlations.OilFVF
-	case fit.Co:
-		cp = correlations.Compressibility
-	case fit.MuDead:
-		cp = correlations.DeadViscosity
-	case fit.MuSat:
-		cp = correlations.SatViscosity
-	case fit.MuUnder:
-		cp = correlations.UnderViscosity
-	case fit.Z:
-		cp = correlations.GasZ
-		if _, z, ok := strings.Cut(family, "+"); ok {
-			family = z
-		}
-	default:
-		return correlations.Entry{}, fmt.Errorf("export: no catalog property for %s", p)
-	}
-	return correlations.Lookup(cp, family)
 }
 
 // waterWarnings checks the water correlations' data ranges at the table's conditions: the

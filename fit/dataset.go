@@ -181,6 +181,10 @@ func (ds *Dataset) add(p PropertyID, pt Point) { ds.Points[p] = append(ds.Points
 // rangeInputs gives the values that catalog ranges are checked against.
 func (ds *Dataset) rangeInputs() map[string]float64 { return rangeInputs(ds.Oil, ds.Rsb, ds.Pb) }
 
+// RangeInputs gives the values that the families' catalog ranges are checked against on this
+// report (Entry.Check, Entry.CheckValues): the oil's API, gas gravity and temperature, Rsb, Pb.
+func (ds *Dataset) RangeInputs() map[string]float64 { return ds.rangeInputs() }
+
 func rangeInputs(o correlations.Oil, rsb, pb float64) map[string]float64 {
 	return map[string]float64{
 		"API": o.API, "gas gravity": o.GasGravity, "temperature": o.Temperature,

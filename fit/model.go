@@ -360,6 +360,10 @@ func PublishedModel(ds *Dataset, choice Choice, opts Options) (*Model, error) {
 	return NewModel(ds, res, opts)
 }
 
+// RangeInputs gives the values that the model's families' catalog ranges are checked against
+// (the tuned Pb and Rsb), as RangeWarnings uses them.
+func (m *Model) RangeInputs() map[string]float64 { return rangeInputs(m.Oil, m.Rsb, m.Pb) }
+
 // RangeWarnings lists, for every family of the model, the inputs outside the range of the
 // family's original data.
 func (m *Model) RangeWarnings() []string {

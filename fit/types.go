@@ -85,7 +85,12 @@ func splitZFamily(family string, o Options) (pc, z string) {
 	return o.pseudoCritical(), family
 }
 
-// catalogEntry returns the catalog entry of a property's family (for z, of its Z method).
+// CatalogEntry returns the catalog entry of a property's family (for z, of its Z method:
+// "sutton+dak" → dak), the entry the range checks use.
+func CatalogEntry(p PropertyID, family string) (correlations.Entry, error) {
+	return catalogEntry(p, family)
+}
+
 func catalogEntry(p PropertyID, family string) (correlations.Entry, error) {
 	if p == Z {
 		_, family = splitZFamily(family, Options{})
