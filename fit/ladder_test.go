@@ -155,14 +155,7 @@ func TestRidgeStrengthChoice(t *testing.T) {
 // and Rs_tuned(Pb_tuned(R)) = R on a grid of R (DESIGN.md §5).
 func TestPbExactAndInverseAtEveryDepth(t *testing.T) {
 	for _, s := range samples.Specs {
-		r, err := samples.Load(s.ID)
-		if err != nil {
-			t.Fatal(err)
-		}
-		ds, err := NewDataset(r)
-		if err != nil {
-			t.Fatal(err)
-		}
+		ds := demoDataset(t, s.ID)
 		rk := Rank(ds, Options{})
 		fam, _ := rk.Best(Pb)
 		for _, d := range Depths[1:] {
@@ -231,14 +224,7 @@ func TestMultiplierFlagsBesideRefit(t *testing.T) {
 // NaN and Inf), and a refit with no point to spare beyond the shallower rungs' parameters says
 // so rather than blaming the coefficients. Behaviour test.
 func TestFewFreePoints(t *testing.T) {
-	r, err := samples.Load("tr3-black")
-	if err != nil {
-		t.Fatal(err)
-	}
-	ds, err := NewDataset(r)
-	if err != nil {
-		t.Fatal(err)
-	}
+	ds := demoDataset(t, "tr3-black")
 	cases := []struct {
 		prop     PropertyID
 		family   string
@@ -300,14 +286,7 @@ func TestFewFreePoints(t *testing.T) {
 // edited by hand no longer honours the report's Pb, and the result says so instead of
 // claiming the anchor. Behaviour test.
 func TestApplyRecordedParameters(t *testing.T) {
-	r, err := samples.Load("tr3-black")
-	if err != nil {
-		t.Fatal(err)
-	}
-	ds, err := NewDataset(r)
-	if err != nil {
-		t.Fatal(err)
-	}
+	ds := demoDataset(t, "tr3-black")
 	for _, d := range []Depth{DepthShape, DepthRefit} {
 		tuned, err := Tune(ds, Pb, "standing", Options{Depth: d})
 		if err != nil {
@@ -359,4 +338,18 @@ func TestApplyRecordedParameters(t *testing.T) {
 	if !found {
 		t.Errorf("edited pb scale: flags %q, want one saying Pb is not the report's", got.Flags)
 	}
+}
+
+// demoDataset loads a built-in demo report and builds its tuning dataset.
+func demoDataset(t testing.TB, id string) *Dataset {
+	t.Helper()
+	r, err := samples.Load(id)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ds, err := NewDataset(r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return ds
 }

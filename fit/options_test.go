@@ -59,14 +59,7 @@ func TestLosses(t *testing.T) {
 // usual trends (common practice: Rs constant and Bo falling above Pb, viscosity rising).
 func TestModelConsistency(t *testing.T) {
 	for _, s := range samples.Specs {
-		r, err := samples.Load(s.ID)
-		if err != nil {
-			t.Fatal(err)
-		}
-		ds, err := NewDataset(r)
-		if err != nil {
-			t.Fatal(err)
-		}
+		ds := demoDataset(t, s.ID)
 		res, err := TuneAll(ds, nil, Options{})
 		if err != nil {
 			t.Fatal(err)
@@ -116,14 +109,7 @@ func TestModelConsistency(t *testing.T) {
 
 // A per-property depth overrides the common one for that property only (behaviour).
 func TestPropertyDepth(t *testing.T) {
-	r, err := samples.Load("tr3-black")
-	if err != nil {
-		t.Fatal(err)
-	}
-	ds, err := NewDataset(r)
-	if err != nil {
-		t.Fatal(err)
-	}
+	ds := demoDataset(t, "tr3-black")
 	res, err := TuneAll(ds, nil, Options{Depth: DepthMultiplier, PropertyDepth: map[PropertyID]Depth{Bo: DepthPublished, Pb: ""}})
 	if err != nil {
 		t.Fatal(err)
